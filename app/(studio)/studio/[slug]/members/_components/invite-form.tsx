@@ -1,0 +1,67 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import { Button } from "@/components/ui/button";
+import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { ROLE_LABELS, type Role } from "@/lib/domain";
+import { inviteSchema } from "@/lib/validations/anthology";
+
+type InviteValues = z.input<typeof inviteSchema>;
+
+/** Sends an invitation e-mail with a role; shows who was invited. */
+export function InviteForm({ slug, roles }: { slug: string; roles: Role[] }) {
+  const [result, setResult] = useState<{ tone: "info" | "error"; text: string }>();
+  const { register, handleSubmit, setError, reset, formState } = useForm<InviteValues>({
+    resolver: zodResolver(inviteSchema),
+    defaultValues: { email: "", role: "contributor" },
+  });
+  const onSubmit = handleSubmit(async (values) => {
+    setResult(undefined);
+    const response = await fetch(`/api/anthologies/${slug}/invitations`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(values),
+    });
+    const body = await response.json();
+    if (!response.ok) {
+      for (const [name, messages] of Object.entries((body.fields ?? {}) as Record<string, string[]>)) {
+        setError(name as keyof InviteValues, { message: messages[0] ?? "Check this field" });
+      }
+      setResult({ tone: "error", text: body.error ?? "The invitation was not sent." });
+      return;
+    }
+    setResult({ tone: "info", text: `Invitation sent to ${body.invited}.` });
+    reset({ email: "", role: values.role });
+  });
+  const e = formState.errors;
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-3">
+      <Field id="invite-email" label="E-mail" error={e.email?.message}>
+        <input {...register("email")} {...describedBy("invite-email", e.email?.message)} type="email" className={`${inputClass} w-72`} />
+      </Field>
+      <Field id="invite-role" label="Role">
+        <select {...register("role")} {...describedBy("invite-role")} className={`${inputClass} bg-white`}>
+          {roles.map((r) => (
+            <option key={r} value={r}>
+              {ROLE_LABELS[r]}
+            </option>
+          ))}
+        </select>
+      </Field>
+      <Button type="submit" busy={formState.isSubmitting}>
+        {formState.isSubmitting ? "Sending…" : "Send invitation"}
+      </Button>
+      {result ? (
+        <div className="w-full">
+          <Notice tone={result.tone} testId="invite-result">
+            {result.text}
+          </Notice>
+        </div>
+      ) : null}
+    </form>
+  );
+}

@@ -1,0 +1,51 @@
+import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { BINDING_LABELS, PRINT_METHOD_LABELS, ROLE_LABELS, STAGE_LABELS } from "@/lib/domain";
+import { formatLength, formatTrim } from "@/lib/format";
+import { shouldScore } from "@/lib/print/paper";
+
+export default async function AnthologyOverview({ params }: { params: Promise<{ slug: string }> }) {
+  const { slug } = await params;
+  const { anthology: a, role } = await requireAnthologyAccess(slug, "anthology:view");
+  const rows: [string, string][] = [
+    ["Trim", formatTrim(a)],
+    ["Bleed", formatLength(a.bleedMm)],
+    ["Safe margin", formatLength(a.safeMarginMm)],
+    ["Minimum resolution", `${a.minPpi} ppi at print size`],
+    ["Binding", BINDING_LABELS[a.binding]],
+    ["Pages", `${a.pageCountTarget} planned, at most ${a.maxPages}`],
+    ["Inside paper", `${a.paperGsm} gsm, ${a.paperCaliperMm} mm thick`],
+    ["Cover", a.coverStock === "self" ? "Self-cover (same paper)" : `Separate stock, ${a.coverPaperGsm} gsm`],
+    ["Print method", PRINT_METHOD_LABELS[a.printMethod]],
+    ["Inks", a.inks.join(", ")],
+  ];
+  const heavyCover = a.coverStock === "separate" && a.coverPaperGsm !== null && shouldScore(a.coverPaperGsm);
+  return (
+    <div className="flex flex-col gap-8">
+      <div>
+        <p className="text-sm text-ink-soft">
+          {a.pressName ?? "Anthology"} · {STAGE_LABELS[a.stage]} · you are {role ? ROLE_LABELS[role].toLowerCase() : "a visitor"}
+        </p>
+        <h1 className="text-4xl font-extrabold" data-testid="anthology-title">
+          {a.title}
+        </h1>
+        {a.summary ? <p className="mt-2 max-w-2xl text-ink-soft">{a.summary}</p> : null}
+      </div>
+      <section aria-labelledby="spec-title" className="max-w-2xl">
+        <h2 id="spec-title" className="mb-3 text-2xl font-semibold">
+          Print spec
+        </h2>
+        <dl className="grid grid-cols-[12rem_1fr] gap-x-4 gap-y-2 text-sm" data-testid="spec-summary">
+          {rows.map(([label, value]) => (
+            <div key={label} className="contents">
+              <dt className="text-ink-soft">{label}</dt>
+              <dd className="font-mono">{value}</dd>
+            </div>
+          ))}
+        </dl>
+        {heavyCover ? (
+          <p className="mt-4 text-sm text-ink-soft">The cover stock is heavy enough that it should be scored before folding so it does not crack.</p>
+        ) : null}
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,24 @@
+import type { Metadata } from "next";
+import type { ReactNode } from "react";
+import { SiteHeader } from "@/components/site-header";
+import { displayFont, monoFont, sansFont } from "./fonts";
+import "./globals.css";
+
+export const metadata: Metadata = {
+  title: { default: "Quireline", template: "%s · Quireline" },
+  description: "From open call to contributor payouts: Quireline runs collaborative zines and small-press anthologies.",
+};
+
+export default function RootLayout({ children }: { children: ReactNode }) {
+  return (
+    <html lang="en" className={`${displayFont.variable} ${sansFont.variable} ${monoFont.variable}`}>
+      <body className="min-h-screen">
+        <SiteHeader />
+        <main className="mx-auto max-w-6xl px-5 py-8">{children}</main>
+        <footer className="mx-auto max-w-6xl px-5 pb-10 pt-6 text-xs text-ink-faint">
+          Quireline keeps records for small presses. Payout figures are records, not tax or legal advice.
+        </footer>
+      </body>
+    </html>
+  );
+}

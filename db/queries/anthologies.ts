@@ -1,0 +1,81 @@
+import "server-only";
+import { and, asc, eq } from "drizzle-orm";
+import { db, schema } from "@/db";
+import type { Role } from "@/lib/domain";
+
+export type Anthology = typeof schema.anthologies.$inferSelect;
+
+export async function findAnthologyBySlug(slug: string): Promise<Anthology | undefined> {
+  const [row] = await db.select().from(schema.anthologies).where(eq(schema.anthologies.slug, slug)).limit(1);
+  return row;
+}
+
+export async function findRole(anthologyId: number, userId: string): Promise<Role | null> {
+  const [row] = await db
+    .select({ role: schema.memberships.role })
+    .from(schema.memberships)
+    .where(and(eq(schema.memberships.anthologyId, anthologyId), eq(schema.memberships.userId, userId)))
+    .limit(1);
+  return row?.role ?? null;
+}
+
+/** Every anthology the person belongs to, with their role there, newest first. */
+export async function listMyAnthologies(userId: string) {
+  return db
+    .select({
+      id: schema.anthologies.id,
+      slug: schema.anthologies.slug,
+      title: schema.anthologies.title,
+      pressName: schema.anthologies.pressName,
+      stage: schema.anthologies.stage,
+      trimWidthMm: schema.anthologies.trimWidthMm,
+      trimHeightMm: schema.anthologies.trimHeightMm,
+      trimPreset: schema.anthologies.trimPreset,
+      pageCountTarget: schema.anthologies.pageCountTarget,
+      role: schema.memberships.role,
+    })
+    .from(schema.memberships)
+    .innerJoin(schema.anthologies, eq(schema.anthologies.id, schema.memberships.anthologyId))
+    .where(eq(schema.memberships.userId, userId))
+    .orderBy(asc(schema.anthologies.title));
+}
+
+export async function listMembers(anthologyId: number) {
+  return db
+    .select({
+      userId: schema.users.id,
+      name: schema.users.name,
+      email: schema.users.email,
+      role: schema.memberships.role,
+    })
+    .from(schema.memberships)
+    .innerJoin(schema.users, eq(schema.users.id, schema.memberships.userId))
+    .where(eq(schema.memberships.anthologyId, anthologyId))
+    .orderBy(asc(schema.memberships.role), asc(schema.users.name));
+}
+
+/** Creates an anthology with a free slug and makes its creator the lead editor, in one transaction. */
+export async function createAnthology(
+  userId: string,
+  fields: Omit<typeof schema.anthologies.$inferInsert, "slug" | "createdBy">,
+  wantedSlug: string,
+): Promise<Anthology> {
+  return db.transaction(async (tx) => {
+    let slug = wantedSlug;
+    for (let n = 2; ; n++) {
+      const [taken] = await tx
+        .select({ id: schema.anthologies.id })
+        .from(schema.anthologies)
+        .where(eq(schema.anthologies.slug, slug))
+        .limit(1);
+      if (!taken) break;
+      slug = `${wantedSlug.slice(0, 55)}-${n}`;
+    }
+    const [inserted] = await tx.insert(schema.anthologies).values({ ...fields, slug, createdBy: userId }).$returningId();
+    if (!inserted) throw new Error("insert returned no id");
+    await tx.insert(schema.memberships).values({ anthologyId: inserted.id, userId, role: "lead" });
+    const [row] = await tx.select().from(schema.anthologies).where(eq(schema.anthologies.id, inserted.id));
+    if (!row) throw new Error("anthology vanished after insert");
+    return row;
+  });
+}

@@ -1,0 +1,424 @@
+/**
+ * The one data model of Quireline. Lengths are millimetres, money is integer cents with a
+ * currency code, times are UTC. Auth.js tables keep the shape its Drizzle adapter expects.
+ */
+import {
+  bigint,
+  boolean,
+  char,
+  customType,
+  datetime,
+  double,
+  index,
+  int,
+  json,
+  mysqlTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  varchar,
+} from "drizzle-orm/mysql-core";
+import type { AdapterAccountType } from "next-auth/adapters";
+import {
+  ANTHOLOGY_STAGES,
+  BINDINGS,
+  COVER_STOCKS,
+  FEE_KINDS,
+  PIECE_KINDS,
+  PIECE_STATUSES,
+  PRINT_METHODS,
+  ROLES,
+  SLOT_RESERVATIONS,
+  type AnthologyStage,
+  type Binding,
+  type CoverStock,
+  type FeeKind,
+  type PieceKind,
+  type PieceStatus,
+  type PrintMethod,
+  type Role,
+  type SlotReservation,
+} from "../lib/domain";
+
+const id = () => bigint("id", { mode: "number", unsigned: true }).autoincrement().primaryKey();
+const ref = (name: string) => bigint(name, { mode: "number", unsigned: true });
+const userRef = (name: string) => varchar(name, { length: 255 });
+const createdAt = () => datetime("created_at", { mode: "date", fsp: 3 }).notNull().$defaultFn(() => new Date());
+const updatedAt = () =>
+  datetime("updated_at", { mode: "date", fsp: 3 })
+    .notNull()
+    .$defaultFn(() => new Date())
+    .$onUpdateFn(() => new Date());
+
+const mediumBlob = customType<{ data: Buffer; driverData: Buffer }>({
+  dataType: () => "mediumblob",
+});
+
+/* ---------- Auth.js ---------- */
+
+export const users = mysqlTable("user", {
+  id: varchar("id", { length: 255 })
+    .primaryKey()
+    .$defaultFn(() => crypto.randomUUID()),
+  name: varchar("name", { length: 255 }),
+  email: varchar("email", { length: 255 }).unique(),
+  emailVerified: timestamp("emailVerified", { mode: "date", fsp: 3 }),
+  image: varchar("image", { length: 255 }),
+  /** argon2id hash; null for people who only ever sign in by e-mail link. */
+  passwordHash: varchar("password_hash", { length: 255 }),
+  createdAt: datetime("created_at", { mode: "date", fsp: 3 }).$defaultFn(() => new Date()),
+});
+
+export const accounts = mysqlTable(
+  "account",
+  {
+    userId: userRef("userId")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    type: varchar("type", { length: 255 }).$type<AdapterAccountType>().notNull(),
+    provider: varchar("provider", { length: 255 }).notNull(),
+    providerAccountId: varchar("providerAccountId", { length: 255 }).notNull(),
+    refresh_token: varchar("refresh_token", { length: 255 }),
+    access_token: varchar("access_token", { length: 255 }),
+    expires_at: int("expires_at"),
+    token_type: varchar("token_type", { length: 255 }),
+    scope: varchar("scope", { length: 255 }),
+    id_token: varchar("id_token", { length: 2048 }),
+    session_state: varchar("session_state", { length: 255 }),
+  },
+  (t) => [primaryKey({ columns: [t.provider, t.providerAccountId] })],
+);
+
+export const sessions = mysqlTable("session", {
+  sessionToken: varchar("sessionToken", { length: 255 }).primaryKey(),
+  userId: userRef("userId")
+    .notNull()
+    .references(() => users.id, { onDelete: "cascade" }),
+  expires: timestamp("expires", { mode: "date" }).notNull(),
+});
+
+export const verificationTokens = mysqlTable(
+  "verificationToken",
+  {
+    identifier: varchar("identifier", { length: 255 }).notNull(),
+    token: varchar("token", { length: 255 }).notNull(),
+    expires: timestamp("expires", { mode: "date" }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.identifier, t.token] })],
+);
+
+/* ---------- Anthologies and people ---------- */
+
+export const anthologies = mysqlTable("anthology", {
+  id: id(),
+  slug: varchar("slug", { length: 80 }).notNull().unique(),
+  title: varchar("title", { length: 200 }).notNull(),
+  pressName: varchar("press_name", { length: 200 }),
+  summary: text("summary"),
+  stage: varchar("stage", { length: 24, enum: ANTHOLOGY_STAGES }).$type<AnthologyStage>().notNull().default("planning"),
+  trimPreset: varchar("trim_preset", { length: 32 }).notNull(),
+  trimWidthMm: double("trim_width_mm").notNull(),
+  trimHeightMm: double("trim_height_mm").notNull(),
+  bleedMm: double("bleed_mm").notNull(),
+  safeMarginMm: double("safe_margin_mm").notNull(),
+  binding: varchar("binding", { length: 24, enum: BINDINGS }).$type<Binding>().notNull(),
+  pageCountTarget: int("page_count_target").notNull(),
+  maxPages: int("max_pages").notNull(),
+  coverStock: varchar("cover_stock", { length: 16, enum: COVER_STOCKS }).$type<CoverStock>().notNull(),
+  coverPaperGsm: int("cover_paper_gsm"),
+  paperGsm: int("paper_gsm").notNull(),
+  paperCaliperMm: double("paper_caliper_mm").notNull(),
+  printMethod: varchar("print_method", { length: 24, enum: PRINT_METHODS }).$type<PrintMethod>().notNull(),
+  /** Ink names in press order, e.g. ["black", "fluorescent pink"]; one drum pass each. */
+  inks: json("inks").$type<string[]>().notNull(),
+  /** Inks the press can lay in one pass over a sheet side (duplicators: usually 1). */
+  inksPerPass: int("inks_per_pass").notNull().default(1),
+  minPpi: int("min_ppi").notNull(),
+  currency: char("currency", { length: 3 }).notNull().default("USD"),
+  /** Bumped on every page-map change; stale map edits are refused. */
+  mapVersion: int("map_version").notNull().default(0),
+  createdBy: userRef("created_by").notNull(),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+export const memberships = mysqlTable(
+  "membership",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    userId: userRef("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: varchar("role", { length: 16, enum: ROLES }).$type<Role>().notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("membership_person").on(t.anthologyId, t.userId), index("membership_user").on(t.userId)],
+);
+
+export const invitations = mysqlTable(
+  "invitation",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    email: varchar("email", { length: 255 }).notNull(),
+    role: varchar("role", { length: 16, enum: ROLES }).$type<Role>().notNull(),
+    /** sha256 of the token sent by e-mail; the token itself is never stored. */
+    tokenHash: char("token_hash", { length: 64 }).notNull().unique(),
+    invitedBy: userRef("invited_by").notNull(),
+    expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+    acceptedAt: datetime("accepted_at", { mode: "date" }),
+    acceptedBy: userRef("accepted_by"),
+    createdAt: createdAt(),
+  },
+  (t) => [index("invitation_anthology").on(t.anthologyId)],
+);
+
+/* ---------- Open call and submissions ---------- */
+
+export const calls = mysqlTable("open_call", {
+  id: id(),
+  anthologyId: ref("anthology_id")
+    .notNull()
+    .unique()
+    .references(() => anthologies.id, { onDelete: "cascade" }),
+  theme: varchar("theme", { length: 200 }).notNull(),
+  brief: text("brief").notNull(),
+  opensAt: datetime("opens_at", { mode: "date" }).notNull(),
+  closesAt: datetime("closes_at", { mode: "date" }).notNull(),
+  /** IANA zone the editor wrote the dates in, for display. */
+  timeZone: varchar("time_zone", { length: 64 }).notNull(),
+  allowedKinds: json("allowed_kinds").$type<PieceKind[]>().notNull(),
+  maxRunPages: int("max_run_pages").notNull().default(4),
+  piecesPerPerson: int("pieces_per_person").notNull().default(2),
+  allowedInks: json("allowed_inks").$type<string[]>().notNull(),
+  feeKind: varchar("fee_kind", { length: 16, enum: FEE_KINDS }).$type<FeeKind>().notNull().default("none"),
+  feeCents: int("fee_cents").notNull().default(0),
+  /** Contributors' pooled share of net sales, in basis points (1 % = 100). */
+  salesShareBasisPoints: int("sales_share_bp").notNull().default(0),
+  contributorCopies: int("contributor_copies").notNull().default(1),
+  rightsAsked: text("rights_asked").notNull(),
+  publishedAt: datetime("published_at", { mode: "date" }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+export const pieces = mysqlTable(
+  "piece",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    contributorId: userRef("contributor_id")
+      .notNull()
+      .references(() => users.id),
+    title: varchar("title", { length: 200 }).notNull(),
+    kind: varchar("kind", { length: 16, enum: PIECE_KINDS }).$type<PieceKind>().notNull(),
+    pageCount: int("page_count").notNull(),
+    inks: json("inks").$type<string[]>().notNull(),
+    creditLine: varchar("credit_line", { length: 200 }).notNull(),
+    creditApprovedAt: datetime("credit_approved_at", { mode: "date" }),
+    statement: text("statement"),
+    status: varchar("status", { length: 24, enum: PIECE_STATUSES }).$type<PieceStatus>().notNull().default("awaiting-review"),
+    /** Worst severity over the current file of every page: blocker, warning, note, pass or missing. */
+    verdict: varchar("verdict", { length: 16 }).notNull().default("missing"),
+    /** Kept out of the map when accepted but deliberately left out of this issue. */
+    leftOut: boolean("left_out").notNull().default(false),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("piece_anthology").on(t.anthologyId, t.status), index("piece_contributor").on(t.contributorId)],
+);
+
+export const piecePages = mysqlTable(
+  "piece_page",
+  {
+    id: id(),
+    pieceId: ref("piece_id")
+      .notNull()
+      .references(() => pieces.id, { onDelete: "cascade" }),
+    /** 1-based position inside the piece. */
+    pageIndex: int("page_index").notNull(),
+    altText: text("alt_text"),
+    currentVersionId: ref("current_version_id"),
+    /** Bumped whenever the current version changes: the guard against two tabs replacing at once. */
+    revision: int("revision").notNull().default(0),
+  },
+  (t) => [uniqueIndex("piece_page_position").on(t.pieceId, t.pageIndex)],
+);
+
+export const fileVersions = mysqlTable(
+  "file_version",
+  {
+    id: id(),
+    piecePageId: ref("piece_page_id")
+      .notNull()
+      .references(() => piecePages.id, { onDelete: "cascade" }),
+    versionNumber: int("version_number").notNull(),
+    storageKey: varchar("storage_key", { length: 128 }).notNull(),
+    fileName: varchar("file_name", { length: 255 }).notNull(),
+    mimeType: varchar("mime_type", { length: 100 }).notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number", unsigned: true }).notNull(),
+    md5: char("md5", { length: 32 }),
+    /** The print engine's report: measured values and findings. */
+    report: json("report").notNull(),
+    verdict: varchar("verdict", { length: 16 }).notNull(),
+    thumbnailWebp: mediumBlob("thumbnail_webp"),
+    thumbnailWidthPx: int("thumbnail_width_px"),
+    thumbnailHeightPx: int("thumbnail_height_px"),
+    uploadedBy: userRef("uploaded_by").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("file_version_number").on(t.piecePageId, t.versionNumber)],
+);
+
+export const pieceEvents = mysqlTable(
+  "piece_event",
+  {
+    id: id(),
+    pieceId: ref("piece_id")
+      .notNull()
+      .references(() => pieces.id, { onDelete: "cascade" }),
+    actorId: userRef("actor_id"),
+    fromStatus: varchar("from_status", { length: 24 }),
+    toStatus: varchar("to_status", { length: 24 }).notNull(),
+    message: text("message"),
+    createdAt: createdAt(),
+  },
+  (t) => [index("piece_event_piece").on(t.pieceId)],
+);
+
+export const editorNotes = mysqlTable(
+  "editor_note",
+  {
+    id: id(),
+    pieceId: ref("piece_id")
+      .notNull()
+      .references(() => pieces.id, { onDelete: "cascade" }),
+    authorId: userRef("author_id").notNull(),
+    body: text("body").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("editor_note_piece").on(t.pieceId)],
+);
+
+/* ---------- Page map ---------- */
+
+export const pageSlots = mysqlTable(
+  "page_slot",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    /** Reader page number, 1 = front cover. */
+    pageNumber: int("page_number").notNull(),
+    reservation: varchar("reservation", { length: 16, enum: SLOT_RESERVATIONS }).$type<SlotReservation>(),
+    pieceId: ref("piece_id").references(() => pieces.id, { onDelete: "set null" }),
+    /** Which page of the piece sits here (1-based). */
+    piecePageIndex: int("piece_page_index"),
+    locked: boolean("locked").notNull().default(false),
+  },
+  (t) => [uniqueIndex("page_slot_number").on(t.anthologyId, t.pageNumber)],
+);
+
+export const mapEvents = mysqlTable(
+  "map_event",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    actorId: userRef("actor_id").notNull(),
+    mapVersion: int("map_version").notNull(),
+    action: varchar("action", { length: 32 }).notNull(),
+    detail: json("detail").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("map_event_anthology").on(t.anthologyId)],
+);
+
+/* ---------- Mail ---------- */
+
+export const emailLog = mysqlTable(
+  "email_log",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id"),
+    pieceId: ref("piece_id"),
+    toEmail: varchar("to_email", { length: 255 }).notNull(),
+    subject: varchar("subject", { length: 255 }).notNull(),
+    kind: varchar("kind", { length: 40 }).notNull(),
+    /** Set for mails that must go out once only (e.g. page notices). */
+    dedupeKey: varchar("dedupe_key", { length: 191 }).unique(),
+    error: text("error"),
+    sentAt: datetime("sent_at", { mode: "date", fsp: 3 }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("email_log_anthology").on(t.anthologyId)],
+);
+
+/* ---------- After the print run: credits, copies, money ---------- */
+
+export const contributorCopies = mysqlTable(
+  "contributor_copy",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    contributorId: userRef("contributor_id").notNull(),
+    quantity: int("quantity").notNull(),
+    delivery: varchar("delivery", { length: 16 }).notNull().default("hand"),
+    handedOverAt: datetime("handed_over_at", { mode: "date" }),
+    note: text("note"),
+  },
+  (t) => [uniqueIndex("contributor_copy_person").on(t.anthologyId, t.contributorId)],
+);
+
+export const finishingBatches = mysqlTable("finishing_batch", {
+  id: id(),
+  anthologyId: ref("anthology_id")
+    .notNull()
+    .references(() => anthologies.id, { onDelete: "cascade" }),
+  label: varchar("label", { length: 120 }).notNull(),
+  copies: int("copies").notNull(),
+  dueOn: datetime("due_on", { mode: "date" }),
+  doneAt: datetime("done_at", { mode: "date" }),
+});
+
+export const sales = mysqlTable("sale", {
+  id: id(),
+  anthologyId: ref("anthology_id")
+    .notNull()
+    .references(() => anthologies.id, { onDelete: "cascade" }),
+  label: varchar("label", { length: 120 }).notNull(),
+  copies: int("copies").notNull(),
+  grossCents: bigint("gross_cents", { mode: "number" }).notNull(),
+  costsCents: bigint("costs_cents", { mode: "number" }).notNull().default(0),
+  soldOn: datetime("sold_on", { mode: "date" }).notNull(),
+});
+
+export const payoutEntries = mysqlTable(
+  "payout_entry",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    contributorId: userRef("contributor_id").notNull(),
+    kind: varchar("kind", { length: 24 }).notNull(),
+    amountCents: bigint("amount_cents", { mode: "number" }).notNull(),
+    currency: char("currency", { length: 3 }).notNull(),
+    state: varchar("state", { length: 16 }).notNull().default("owed"),
+    memo: varchar("memo", { length: 255 }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("payout_entry_person").on(t.anthologyId, t.contributorId)],
+);

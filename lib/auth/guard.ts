@@ -1,0 +1,35 @@
+import "server-only";
+import { forbidden, notFound, redirect } from "next/navigation";
+import { auth } from "@/auth";
+import { findAnthologyBySlug, findRole, type Anthology } from "@/db/queries/anthologies";
+import type { Role } from "@/lib/domain";
+import { can, type Action } from "./policy";
+
+export type SessionUser = { id: string; name: string | null; email: string | null };
+
+/** The signed-in person, or null. */
+export async function currentUser(): Promise<SessionUser | null> {
+  const session = await auth();
+  const user = session?.user;
+  if (!user?.id) return null;
+  return { id: user.id, name: user.name ?? null, email: user.email ?? null };
+}
+
+/** For pages: the signed-in person, or a redirect to sign-in that comes back to `returnTo`. */
+export async function requireUser(returnTo = "/studio"): Promise<SessionUser> {
+  const user = await currentUser();
+  if (!user) redirect(`/sign-in?callbackUrl=${encodeURIComponent(returnTo)}`);
+  return user;
+}
+
+export type AnthologyAccess = { user: SessionUser; anthology: Anthology; role: Role | null };
+
+/** For pages: 404 for an unknown anthology, 403 page when the person's role does not allow `action`. */
+export async function requireAnthologyAccess(slug: string, action: Action, returnTo?: string): Promise<AnthologyAccess> {
+  const user = await requireUser(returnTo ?? `/studio/${slug}`);
+  const anthology = await findAnthologyBySlug(slug);
+  if (!anthology) notFound();
+  const role = await findRole(anthology.id, user.id);
+  if (!can(role, action)) forbidden();
+  return { user, anthology, role };
+}

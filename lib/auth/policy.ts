@@ -1,0 +1,39 @@
+/**
+ * Who may do what inside one anthology. The single table every route handler, server action
+ * and page consults (through lib/auth/guard.ts); pure so it can be tested as a table.
+ */
+import type { Role } from "@/lib/domain";
+
+export const ACTIONS = {
+  "anthology:view": ["lead", "editor", "finisher", "contributor"],
+  "anthology:edit-spec": ["lead", "editor"],
+  "members:manage": ["lead"],
+  "members:invite": ["lead", "editor"],
+  "call:edit": ["lead", "editor"],
+  "call:edit-terms": ["lead"],
+  "pieces:review": ["lead", "editor"],
+  "pieces:submit": ["contributor"],
+  "pieces:view-own": ["contributor"],
+  "map:view": ["lead", "editor", "finisher"],
+  "map:edit": ["lead", "editor"],
+  "production:view": ["lead", "editor", "finisher"],
+  "finishing:mark-done": ["lead", "editor", "finisher"],
+  "contributors:private-data": ["lead", "editor"],
+  "payouts:manage": ["lead"],
+  "payouts:view-own": ["contributor"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof ACTIONS;
+
+/** True when a member with `role` (null: not a member) may perform `action`. */
+export function can(role: Role | null | undefined, action: Action): boolean {
+  if (!role) return false;
+  return (ACTIONS[action] as readonly Role[]).includes(role);
+}
+
+/** Which roles an inviter may hand out: leads invite anyone; editors invite all but leads. */
+export function rolesInvitableBy(role: Role | null | undefined): Role[] {
+  if (role === "lead") return ["lead", "editor", "finisher", "contributor"];
+  if (role === "editor") return ["editor", "finisher", "contributor"];
+  return [];
+}

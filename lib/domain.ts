@@ -1,0 +1,73 @@
+/** Names of the states and kinds Quireline's records move through, with their plain-English labels. */
+
+export const ROLES = ["lead", "editor", "finisher", "contributor"] as const;
+export type Role = (typeof ROLES)[number];
+export const ROLE_LABELS: Record<Role, string> = {
+  lead: "Lead editor",
+  editor: "Editor",
+  finisher: "Finisher",
+  contributor: "Contributor",
+};
+
+/** Where an anthology is in its life, in order; it only moves forward. */
+export const ANTHOLOGY_STAGES = ["planning", "call-open", "call-closed", "laying-out", "printing", "wrapped-up"] as const;
+export type AnthologyStage = (typeof ANTHOLOGY_STAGES)[number];
+export const STAGE_LABELS: Record<AnthologyStage, string> = {
+  planning: "Planning",
+  "call-open": "Call open",
+  "call-closed": "Call closed",
+  "laying-out": "Laying out",
+  printing: "Printing and finishing",
+  "wrapped-up": "Wrapped up",
+};
+
+export const PIECE_KINDS = ["single", "spread", "run"] as const;
+export type PieceKind = (typeof PIECE_KINDS)[number];
+export const PIECE_KIND_LABELS: Record<PieceKind, string> = {
+  single: "One page",
+  spread: "Two-page spread",
+  run: "Run of pages",
+};
+
+export const PIECE_STATUSES = [
+  "awaiting-review",
+  "fix-requested",
+  "shortlisted",
+  "accepted",
+  "declined",
+  "withdrawn",
+] as const;
+export type PieceStatus = (typeof PIECE_STATUSES)[number];
+export const PIECE_STATUS_LABELS: Record<PieceStatus, string> = {
+  "awaiting-review": "Waiting for a read",
+  "fix-requested": "Fix asked",
+  shortlisted: "Shortlisted",
+  accepted: "In the book",
+  declined: "Not this time",
+  withdrawn: "Withdrawn",
+};
+
+export const BINDINGS = ["saddle-stitch", "fold-only"] as const;
+export type Binding = (typeof BINDINGS)[number];
+export const BINDING_LABELS: Record<Binding, string> = {
+  "saddle-stitch": "Saddle stitch (folded and stapled)",
+  "fold-only": "Fold-only single sheet",
+};
+
+export const COVER_STOCKS = ["self", "separate"] as const;
+export type CoverStock = (typeof COVER_STOCKS)[number];
+
+export const PRINT_METHODS = ["duplicator", "laser-colour", "laser-black", "inkjet"] as const;
+export type PrintMethod = (typeof PRINT_METHODS)[number];
+export const PRINT_METHOD_LABELS: Record<PrintMethod, string> = {
+  duplicator: "Stencil duplicator (one drum per ink)",
+  "laser-colour": "Colour laser",
+  "laser-black": "Black laser",
+  inkjet: "Inkjet",
+};
+
+export const FEE_KINDS = ["none", "per-piece", "per-page"] as const;
+export type FeeKind = (typeof FEE_KINDS)[number];
+
+export const SLOT_RESERVATIONS = ["cover", "inside-cover", "contents", "credits", "colophon", "ad", "blank"] as const;
+export type SlotReservation = (typeof SLOT_RESERVATIONS)[number];

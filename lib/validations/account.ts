@@ -1,0 +1,31 @@
+import { z } from "zod";
+
+export const emailSchema = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .pipe(z.email("Enter an e-mail address like name@example.org"));
+
+/** At least 10 characters with a letter and a digit, and not one of the passwords everyone tries. */
+export const newPasswordSchema = z
+  .string()
+  .min(10, "Use at least 10 characters")
+  .max(200, "Use at most 200 characters")
+  .refine((p) => /[A-Za-z]/.test(p) && /\d/.test(p), "Mix letters and at least one digit")
+  .refine((p) => !COMMON_PASSWORDS.has(p.toLowerCase()), "That password is too easy to guess");
+
+const COMMON_PASSWORDS = new Set(["password123", "password1234", "qwerty12345", "1234567890a", "letmein1234"]);
+
+export const signUpSchema = z.object({
+  name: z.string().trim().min(1, "Tell us your name").max(120, "Keep it under 120 characters"),
+  email: emailSchema,
+  password: newPasswordSchema,
+});
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const signInSchema = z.object({
+  email: emailSchema,
+  password: z.string().min(1, "Enter your password"),
+});
+
+export const emailLinkSchema = z.object({ email: emailSchema });

@@ -1,0 +1,142 @@
+import { z } from "zod";
+import { BINDINGS, COVER_STOCKS, PRINT_METHODS } from "@/lib/domain";
+import { defaultCaliperMm } from "@/lib/print/paper";
+import { findPreset } from "@/lib/print/sizes";
+import { inToMm } from "@/lib/print/units";
+
+/** Trim choices the new-anthology form offers, in the order shown; "custom" takes a size. */
+export const TRIM_CHOICES = [
+  "a5",
+  "a6",
+  "half-letter",
+  "quarter-letter",
+  "letter",
+  "4x6in",
+  "5x5in",
+  "5x6in",
+  "3.5x4.5in",
+  "4.5x6in",
+  "custom",
+] as const;
+export type TrimChoice = (typeof TRIM_CHOICES)[number];
+
+const positive = (label: string, max: number) =>
+  z.coerce
+    .number({ error: `${label} must be a number` })
+    .positive(`${label} must be more than zero`)
+    .max(max, `${label} must be at most ${max}`);
+
+const optionalNumber = z.preprocess((v) => (v === "" || v === null ? undefined : v), z.coerce.number().optional());
+
+/** What the new-anthology form sends and the route handler accepts; lengths in the chosen unit. */
+export const anthologyInputSchema = z
+  .object({
+    title: z.string().trim().min(2, "Give the anthology a title").max(200, "Keep the title under 200 characters"),
+    pressName: z.string().trim().max(200).optional().default(""),
+    summary: z.string().trim().max(2000).optional().default(""),
+    trimChoice: z.enum(TRIM_CHOICES, { error: "Choose a trim size" }),
+    orientation: z.enum(["portrait", "landscape"]).default("portrait"),
+    unit: z.enum(["mm", "in"]).default("mm"),
+    customWidth: optionalNumber,
+    customHeight: optionalNumber,
+    bleed: z.coerce.number({ error: "Bleed must be a number" }).min(0, "Bleed cannot be negative").max(25, "Bleed over 25 mm is unusual: check the unit"),
+    safeMargin: z.coerce.number({ error: "Safe margin must be a number" }).min(0, "Safe margin cannot be negative").max(50),
+    binding: z.enum(BINDINGS),
+    pageCountTarget: z.coerce.number().int("Whole pages only").min(4, "At least 4 pages").max(400, "At most 400 pages"),
+    maxPages: z.coerce.number().int("Whole pages only").min(4).max(400, "At most 400 pages"),
+    coverStock: z.enum(COVER_STOCKS),
+    coverPaperGsm: optionalNumber.pipe(z.number().int().min(60).max(500).optional()),
+    paperGsm: z.coerce.number().int("Whole grams only").min(35, "Paper under 35 gsm is tissue").max(400, "Over 400 gsm is board"),
+    paperCaliperMm: optionalNumber.pipe(z.number().min(0.03, "Caliper under 0.03 mm: check the unit").max(1).optional()),
+    printMethod: z.enum(PRINT_METHODS),
+    inks: z.array(z.string().trim().min(1).max(40)).min(1, "Name at least one ink").max(8, "At most 8 inks"),
+    inksPerPass: z.coerce.number().int().min(1).max(8).default(1),
+    minPpi: z.coerce.number().int().min(72, "Below 72 ppi nothing prints well").max(2400),
+  })
+  .superRefine((v, ctx) => {
+    if (v.trimChoice === "custom") {
+      const max = v.unit === "mm" ? 1200 : 48;
+      for (const key of ["customWidth", "customHeight"] as const) {
+        const value = v[key];
+        if (value === undefined || !(value > 0)) {
+          ctx.addIssue({ code: "custom", path: [key], message: "Enter the custom size" });
+        } else if (value > max) {
+          ctx.addIssue({ code: "custom", path: [key], message: `At most ${max} ${v.unit}` });
+        }
+      }
+    }
+    if (v.binding === "saddle-stitch" && v.pageCountTarget % 4 !== 0) {
+      const down = Math.max(4, v.pageCountTarget - (v.pageCountTarget % 4));
+      ctx.addIssue({
+        code: "custom",
+        path: ["pageCountTarget"],
+        // common practice, no source: every folded sheet carries 4 pages.
+        message: `A saddle-stitched booklet has a multiple of 4 pages: try ${down} or ${down + 4}`,
+      });
+    }
+    if (v.pageCountTarget > v.maxPages) {
+      ctx.addIssue({ code: "custom", path: ["maxPages"], message: "The most pages must be at least the page count" });
+    }
+    if (v.coverStock === "separate" && v.coverPaperGsm === undefined) {
+      ctx.addIssue({ code: "custom", path: ["coverPaperGsm"], message: "Give the cover stock's weight in gsm" });
+    }
+    if (new Set(v.inks.map((i) => i.toLowerCase())).size !== v.inks.length) {
+      ctx.addIssue({ code: "custom", path: ["inks"], message: "Each ink once" });
+    }
+  });
+
+export type AnthologyInput = z.input<typeof anthologyInputSchema>;
+export type AnthologyParsed = z.output<typeof anthologyInputSchema>;
+
+/** The spec columns of an anthology, in millimetres, from validated form input. */
+export function anthologySpecFromInput(v: AnthologyParsed) {
+  const toMm = (value: number) => (v.unit === "in" ? inToMm(value) : value);
+  let widthMm: number;
+  let heightMm: number;
+  if (v.trimChoice === "custom") {
+    widthMm = toMm(v.customWidth ?? 0);
+    heightMm = toMm(v.customHeight ?? 0);
+  } else {
+    const preset = findPreset(v.trimChoice);
+    if (!preset) throw new Error(`unknown trim preset ${v.trimChoice}`);
+    widthMm = preset.widthMm;
+    heightMm = preset.heightMm;
+  }
+  const [shortMm, longMm] = widthMm <= heightMm ? [widthMm, heightMm] : [heightMm, widthMm];
+  const landscape = v.orientation === "landscape";
+  return {
+    trimPreset: v.trimChoice,
+    trimWidthMm: landscape ? longMm : shortMm,
+    trimHeightMm: landscape ? shortMm : longMm,
+    bleedMm: toMm(v.bleed),
+    safeMarginMm: toMm(v.safeMargin),
+    binding: v.binding,
+    pageCountTarget: v.pageCountTarget,
+    maxPages: v.maxPages,
+    coverStock: v.coverStock,
+    coverPaperGsm: v.coverStock === "separate" ? (v.coverPaperGsm ?? null) : null,
+    paperGsm: v.paperGsm,
+    paperCaliperMm: v.paperCaliperMm ?? Number(defaultCaliperMm(v.paperGsm).toFixed(3)),
+    printMethod: v.printMethod,
+    inks: v.inks,
+    inksPerPass: v.inksPerPass,
+    minPpi: v.minPpi,
+  };
+}
+
+/** A URL-safe slug from a title: lowercase words joined by hyphens. */
+export function slugify(title: string): string {
+  const slug = title
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 60);
+  return slug || "anthology";
+}
+
+export const inviteSchema = z.object({
+  email: z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.org")),
+  role: z.enum(["lead", "editor", "finisher", "contributor"], { error: "Choose a role" }),
+});

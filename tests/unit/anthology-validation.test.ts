@@ -1,0 +1,87 @@
+import { describe, expect, it } from "vitest";
+import { anthologyInputSchema, anthologySpecFromInput, slugify } from "@/lib/validations/anthology";
+
+const base = {
+  title: "Salt and Static",
+  trimChoice: "half-letter",
+  orientation: "portrait",
+  unit: "in",
+  bleed: 0.125,
+  safeMargin: 0.25,
+  binding: "saddle-stitch",
+  pageCountTarget: 24,
+  maxPages: 48,
+  coverStock: "self",
+  paperGsm: 90,
+  printMethod: "duplicator",
+  inks: ["black", "teal"],
+  minPpi: 300,
+};
+
+const parse = (patch: Record<string, unknown>) => anthologyInputSchema.safeParse({ ...base, ...patch });
+const messages = (patch: Record<string, unknown>) => {
+  const result = parse(patch);
+  return result.success ? {} : Object.fromEntries(result.error.issues.map((i) => [i.path.join("."), i.message]));
+};
+
+describe("anthology spec input", () => {
+  it("stores half letter as 5.5 x 8.5 in in millimetres", () => {
+    const result = parse({});
+    expect(result.success).toBe(true);
+    const spec = anthologySpecFromInput(result.data!);
+    // ANSI/ASME Y14.1 and CSS Paged Media: letter = 8.5 x 11 in; folded once = 5.5 x 8.5 in (common practice, no source)
+    expect(spec.trimWidthMm).toBeCloseTo(139.7, 6);
+    expect(spec.trimHeightMm).toBeCloseTo(215.9, 6);
+    // NBS Circular 572: 1 in = 25.4 mm exactly, so 0.125 in = 3.175 mm
+    expect(spec.bleedMm).toBeCloseTo(3.175, 9);
+    expect(spec.safeMarginMm).toBeCloseTo(6.35, 9);
+  });
+
+  it("takes A5 from ISO 216 and turns it for landscape", () => {
+    const result = parse({ trimChoice: "a5", orientation: "landscape", unit: "mm", bleed: 3, safeMargin: 5 });
+    const spec = anthologySpecFromInput(result.data!);
+    // ISO 216: A5 = 148 x 210 mm
+    expect([spec.trimWidthMm, spec.trimHeightMm]).toEqual([210, 148]);
+    expect(spec.bleedMm).toBe(3);
+  });
+
+  it("accepts a custom 4 x 6 in trim (common practice, no source: a usual zine size)", () => {
+    const result = parse({ trimChoice: "custom", customWidth: 4, customHeight: 6 });
+    const spec = anthologySpecFromInput(result.data!);
+    expect(spec.trimWidthMm).toBeCloseTo(101.6, 9);
+    expect(spec.trimHeightMm).toBeCloseTo(152.4, 9);
+  });
+
+  it("asks for the size of a custom trim", () => {
+    expect(messages({ trimChoice: "custom" })).toMatchObject({ customWidth: "Enter the custom size", customHeight: "Enter the custom size" });
+  });
+
+  it("wants a multiple of 4 pages for saddle stitch, suggesting the neighbours", () => {
+    // A sheet folded once carries 4 pages (common practice, no source).
+    expect(messages({ pageCountTarget: 22 }).pageCountTarget).toBe("A saddle-stitched booklet has a multiple of 4 pages: try 20 or 24");
+    expect(parse({ binding: "fold-only", pageCountTarget: 6, maxPages: 8 }).success).toBe(true);
+  });
+
+  it("refuses more pages than the binding allows, and a separate cover without its weight", () => {
+    expect(messages({ pageCountTarget: 52 }).maxPages).toBeDefined();
+    expect(messages({ coverStock: "separate" }).coverPaperGsm).toBe("Give the cover stock's weight in gsm");
+  });
+
+  it("estimates the caliper from the weight when none is given", () => {
+    const spec = anthologySpecFromInput(parse({}).data!);
+    expect(spec.paperCaliperMm).toBeGreaterThan(0.05);
+    expect(spec.paperCaliperMm).toBeLessThan(0.2);
+    expect(anthologySpecFromInput(parse({ paperCaliperMm: 0.104 }).data!).paperCaliperMm).toBe(0.104);
+  });
+
+  it("refuses duplicate inks and an empty ink list", () => {
+    expect(messages({ inks: ["black", "Black"] }).inks).toBe("Each ink once");
+    expect(messages({ inks: [] }).inks).toBe("Name at least one ink");
+  });
+
+  it("makes slugs from titles", () => {
+    expect(slugify("Low Tide Almanac #3: Mudflats!")).toBe("low-tide-almanac-3-mudflats");
+    expect(slugify("Écume & Sel")).toBe("ecume-sel");
+    expect(slugify("!!!")).toBe("anthology");
+  });
+});

@@ -1,0 +1,58 @@
+import { describe, expect, it } from "vitest";
+import { ACTIONS, can, rolesInvitableBy, type Action } from "@/lib/auth/policy";
+import { ROLES, type Role } from "@/lib/domain";
+
+// The product's role table: L = lead editor, E = editor, F = finisher, C = contributor.
+const TABLE: Record<Action, string> = {
+  "anthology:view": "LEFC",
+  "anthology:edit-spec": "LE",
+  "members:manage": "L",
+  "members:invite": "LE",
+  "call:edit": "LE",
+  "call:edit-terms": "L",
+  "pieces:review": "LE",
+  "pieces:submit": "C",
+  "pieces:view-own": "C",
+  "map:view": "LEF",
+  "map:edit": "LE",
+  "production:view": "LEF",
+  "finishing:mark-done": "LEF",
+  "contributors:private-data": "LE",
+  "payouts:manage": "L",
+  "payouts:view-own": "C",
+};
+const LETTER: Record<Role, string> = { lead: "L", editor: "E", finisher: "F", contributor: "C" };
+
+describe("role rules", () => {
+  it("covers every action in the table", () => {
+    expect(Object.keys(ACTIONS).sort()).toEqual(Object.keys(TABLE).sort());
+  });
+
+  for (const [action, letters] of Object.entries(TABLE) as [Action, string][]) {
+    for (const role of ROLES) {
+      const allowed = letters.includes(LETTER[role]);
+      it(`${role} ${allowed ? "may" : "may not"} ${action}`, () => {
+        expect(can(role, action)).toBe(allowed);
+      });
+    }
+  }
+
+  it("refuses everything to non-members", () => {
+    for (const action of Object.keys(TABLE) as Action[]) {
+      expect(can(null, action)).toBe(false);
+      expect(can(undefined, action)).toBe(false);
+    }
+  });
+
+  it("keeps finishers away from contributors' private data and money", () => {
+    expect(can("finisher", "contributors:private-data")).toBe(false);
+    expect(can("finisher", "payouts:manage")).toBe(false);
+  });
+
+  it("lets only leads invite leads", () => {
+    expect(rolesInvitableBy("lead")).toContain("lead");
+    expect(rolesInvitableBy("editor")).toEqual(["editor", "finisher", "contributor"]);
+    expect(rolesInvitableBy("finisher")).toEqual([]);
+    expect(rolesInvitableBy("contributor")).toEqual([]);
+  });
+});
