@@ -143,9 +143,8 @@ export async function startSmtpSink(options) {
       stream.on("error", (err) => callback(err));
       stream.on("end", () => {
         if (stream.sizeExceeded) {
-          const err = new Error("Message exceeds the size limit");
-          // @ts-ignore smtp-server reads responseCode
-          err.responseCode = 552;
+          // smtp-server answers with the error's responseCode.
+          const err = Object.assign(new Error("Message exceeds the size limit"), { responseCode: 552 });
           return callback(err);
         }
         parseMessage(Buffer.concat(chunks), session.envelope)

@@ -20,12 +20,6 @@ export const TRIM_CHOICES = [
 ] as const;
 export type TrimChoice = (typeof TRIM_CHOICES)[number];
 
-const positive = (label: string, max: number) =>
-  z.coerce
-    .number({ error: `${label} must be a number` })
-    .positive(`${label} must be more than zero`)
-    .max(max, `${label} must be at most ${max}`);
-
 const optionalNumber = z.preprocess((v) => (v === "" || v === null ? undefined : v), z.coerce.number().optional());
 
 /** What the new-anthology form sends and the route handler accepts; lengths in the chosen unit. */

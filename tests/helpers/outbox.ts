@@ -76,7 +76,7 @@ export async function waitForMessage(
   const timeoutMs = opts.timeoutMs ?? 10_000;
   const intervalMs = opts.intervalMs ?? 150;
   const deadline = Date.now() + timeoutMs;
-  let seen: OutboxMessage[] = [];
+  let seen: OutboxMessage[];
   for (;;) {
     seen = await listMessages({ baseUrl: opts.baseUrl, to: opts.to });
     const matching = seen.filter((m) => !opts.subject || opts.subject.test(m.subject));
