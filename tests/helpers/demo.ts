@@ -1,6 +1,11 @@
-import demoAccounts from "../../db/demo-accounts.json";
+import { readFileSync } from "node:fs";
 
-type DemoAccount = (typeof demoAccounts)[number];
+type DemoAccount = { role: string; name: string; email: string; password: string };
+
+// Read rather than imported: Playwright's loader needs import attributes for JSON modules.
+const demoAccounts: DemoAccount[] = JSON.parse(
+  readFileSync(new URL("../../db/demo-accounts.json", import.meta.url), "utf8"),
+);
 
 /** A demo person from db/demo-accounts.json by e-mail prefix, e.g. demoAccount("odile"). */
 export function demoAccount(prefix: string): DemoAccount {
