@@ -13,7 +13,8 @@ test("sign up, sign out, sign in again with the password", async ({ page }) => {
   await expect(page).toHaveURL(/\/studio$/);
   await expect(page.getByTestId("empty-studio")).toBeVisible();
   await page.getByRole("button", { name: "Sign out" }).click();
-  await expect(page.getByRole("link", { name: "Sign in" })).toBeVisible();
+  await expect(page.getByRole("navigation").getByRole("link", { name: "Sign in" })).toBeVisible();
+  await expect(page.getByTestId("signed-in-as")).toHaveCount(0);
   await signInWithPassword(page, email, "fennel-cabin-42");
   await expect(page).toHaveURL(/\/studio$/);
 });
@@ -117,7 +118,7 @@ test("API: 401 without a session, 400 for bad JSON and schema failures, 404 for 
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   const api = page.request;
-  const notJson = await api.post("/api/anthologies", { data: "{not json", headers: { "content-type": "application/json" } });
+  const notJson = await api.post("/api/anthologies", { data: Buffer.from("{not json"), headers: { "content-type": "application/json" } });
   expect(notJson.status()).toBe(400);
   expect((await notJson.json()).error).toContain("not valid JSON");
 
