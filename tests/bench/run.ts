@@ -1,7 +1,8 @@
 /**
  * `npm run bench`: prints JSON timings for the print engine. The header-only and full spec
  * checks run on a 100-megapixel JPEG beside sharp's bare metadata() on the same bytes (the
- * baseline, same run); then imposition math for 96 pages and cost tables for 20 quantities.
+ * baseline, same run); then imposition math for 96 pages, cost tables for 20 quantities and the
+ * page-map proposal (200 pieces into 96 pages).
  * No thresholds: the figures are for reading, not for passing.
  */
 import { performance } from "node:perf_hooks";
@@ -17,6 +18,7 @@ import {
 } from "../../lib/print/imposition";
 import { planInkPasses } from "../../lib/print/passes";
 import type { PrintSpec } from "../../lib/print/spec";
+import { benchMap } from "./map";
 
 interface Timing {
   runs: number;
@@ -165,6 +167,7 @@ async function main(): Promise<void> {
       breakEven: breakEven(inputs, quotes, 1000),
       ...(await time(500, costs)),
     },
+    pageMapProposal: benchMap(),
   };
   console.log(JSON.stringify(report, null, 2));
 }
