@@ -1,7 +1,10 @@
 import Link from "next/link";
+import { connection } from "next/server";
 import demoAccounts from "@/db/demo-accounts.json";
+import { listOpenCalls } from "@/db/queries/open-call";
 import { linkButtonClass } from "@/components/ui/button";
 import { ROLE_LABELS, type Role } from "@/lib/domain";
+import { formatDateInZone } from "@/lib/time-zones";
 
 const STEPS = [
   ["Open a call", "Theme, deadline, what a piece may be, the inks, the terms and a public page to share."],
@@ -11,7 +14,21 @@ const STEPS = [
   ["Credit and pay", "Approved credit lines, contributor copies and exact-cent payouts from the same records."],
 ] as const;
 
-export default function Landing() {
+/** Calls taking work now (or soon); the landing page still renders when the database is away. */
+async function openCalls() {
+  await connection();
+  const now = new Date();
+  try {
+    const calls = await listOpenCalls(now);
+    return calls.map((call) => ({ ...call, upcoming: call.opensAt.getTime() > now.getTime() }));
+  } catch (error) {
+    console.error("landing: could not list open calls", error);
+    return [];
+  }
+}
+
+export default async function Landing() {
+  const calls = await openCalls();
   return (
     <div className="flex flex-col gap-14">
       <section className="grid items-center gap-10 md:grid-cols-[3fr_2fr]">
@@ -55,6 +72,26 @@ export default function Landing() {
           The Marrowbend Print Collective is putting together <em>Low Tide Almanac</em>, a half-letter anthology printed
           on a two-drum stencil duplicator. Sign in as any of its people:
         </p>
+        {calls.length > 0 ? (
+          <div className="mt-4" data-testid="open-calls">
+            <h3 className="text-base font-semibold">Open calls</h3>
+            <ul className="mt-1 flex flex-col gap-1 text-sm">
+              {calls.map((call) => (
+                <li key={call.slug}>
+                  <Link href={`/calls/${call.slug}`} className="font-semibold text-teal-dark">
+                    {call.title}&rsquo;s open call
+                  </Link>{" "}
+                  <span className="text-ink-soft">
+                    &ldquo;{call.theme}&rdquo;,{" "}
+                    {call.upcoming
+                      ? `opens ${formatDateInZone(call.opensAt, call.timeZone)}`
+                      : `closes ${formatDateInZone(call.closesAt, call.timeZone)}`}
+                  </span>
+                </li>
+              ))}
+            </ul>
+          </div>
+        ) : null}
         <table className="mt-4 w-full text-left text-sm">
           <thead className="text-ink-faint">
             <tr>

@@ -11,6 +11,7 @@ export const ACTIONS = {
   "members:invite": ["lead", "editor"],
   "call:edit": ["lead", "editor"],
   "call:edit-terms": ["lead"],
+  "stage:advance": ["lead", "editor"],
   "pieces:review": ["lead", "editor"],
   "pieces:submit": ["contributor"],
   "pieces:view-own": ["contributor"],

@@ -10,6 +10,7 @@ const TABLE: Record<Action, string> = {
   "members:invite": "LE",
   "call:edit": "LE",
   "call:edit-terms": "L",
+  "stage:advance": "LE",
   "pieces:review": "LE",
   "pieces:submit": "C",
   "pieces:view-own": "C",

@@ -1,4 +1,10 @@
+import Link from "next/link";
+import { findCall } from "@/db/queries/open-call";
 import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { can } from "@/lib/auth/policy";
+import { env } from "@/lib/env";
+import { callPhase } from "@/lib/stages";
+import { formatInZone } from "@/lib/time-zones";
 import { BINDING_LABELS, PRINT_METHOD_LABELS, ROLE_LABELS, STAGE_LABELS } from "@/lib/domain";
 import { formatLength, formatTrim } from "@/lib/format";
 import { shouldScore } from "@/lib/print/paper";
@@ -18,6 +24,9 @@ export default async function AnthologyOverview({ params }: { params: Promise<{ 
     ["Print method", PRINT_METHOD_LABELS[a.printMethod]],
     ["Inks", a.inks.join(", ")],
   ];
+  const call = await findCall(a.id);
+  const phase = callPhase(call?.publishedAt ? call : null, a.stage, new Date());
+  const publicPath = `/calls/${a.slug}`;
   const heavyCover = a.coverStock === "separate" && a.coverPaperGsm !== null && shouldScore(a.coverPaperGsm);
   return (
     <div className="flex flex-col gap-8">
@@ -30,6 +39,42 @@ export default async function AnthologyOverview({ params }: { params: Promise<{ 
         </h1>
         {a.summary ? <p className="mt-2 max-w-2xl text-ink-soft">{a.summary}</p> : null}
       </div>
+      <section aria-labelledby="call-title" className="max-w-2xl" data-testid="overview-call">
+        <h2 id="call-title" className="mb-2 text-2xl font-semibold">
+          Open call
+        </h2>
+        <p className="text-sm">
+          {call ? (
+            <>
+              <strong>{call.theme}</strong> ·{" "}
+              {phase === "unpublished"
+                ? "not published yet"
+                : phase === "upcoming"
+                  ? `opens ${formatInZone(call.opensAt, call.timeZone)}`
+                  : phase === "open"
+                    ? `open until ${formatInZone(call.closesAt, call.timeZone)}`
+                    : `closed on ${formatInZone(call.closesAt, call.timeZone)}`}
+            </>
+          ) : (
+            "No call written yet."
+          )}
+        </p>
+        <p className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm">
+          {can(role, "call:edit") ? (
+            <Link href={`/studio/${a.slug}/call`} data-testid="edit-call-link">
+              {call ? "Edit the call and its stage" : "Write the open call"}
+            </Link>
+          ) : null}
+          {phase !== "unpublished" ? (
+            <span>
+              Public page:{" "}
+              <Link href={publicPath} className="font-mono" data-testid="overview-public-link">
+                {new URL(publicPath, env().AUTH_URL).href}
+              </Link>
+            </span>
+          ) : null}
+        </p>
+      </section>
       <section aria-labelledby="spec-title" className="max-w-2xl">
         <h2 id="spec-title" className="mb-3 text-2xl font-semibold">
           Print spec

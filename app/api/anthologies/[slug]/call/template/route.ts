@@ -1,0 +1,59 @@
+import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
+import { findCall } from "@/db/queries/open-call";
+import { apiRoute, HttpError } from "@/lib/api";
+import { currentUser } from "@/lib/auth/guard";
+import { can } from "@/lib/auth/policy";
+import { colourModeText } from "@/lib/call-spec";
+import { findPreset } from "@/lib/print/sizes";
+import { callPhase } from "@/lib/stages";
+import {
+  renderTemplatePdf,
+  renderTemplatePng,
+  TEMPLATE_FORMATS,
+  templateFileName,
+  type TemplateFormat,
+  type TemplateSpec,
+} from "@/lib/templates";
+
+/**
+ * A page template at trim plus bleed (?format=png|pdf). Anyone may download it once the call is
+ * published; before that, only the anthology's members.
+ */
+export const GET = apiRoute(async (request, { params }: { params: Promise<{ slug: string }> }) => {
+  const { slug } = await params;
+  const format = new URL(request.url).searchParams.get("format") ?? "png";
+  if (!TEMPLATE_FORMATS.includes(format as TemplateFormat)) {
+    throw new HttpError(400, `Ask for format=png or format=pdf, not "${format}".`);
+  }
+  const anthology = await findAnthologyBySlug(slug);
+  const notHere = new HttpError(404, `No published open call called "${slug}".`);
+  if (!anthology) throw notHere;
+  const call = await findCall(anthology.id);
+  if (callPhase(call?.publishedAt ? call : null, anthology.stage, new Date()) === "unpublished") {
+    const user = await currentUser();
+    const role = user ? await findRole(anthology.id, user.id) : null;
+    if (!can(role, "anthology:view")) throw notHere;
+  }
+  const spec: TemplateSpec = {
+    trimWidthMm: anthology.trimWidthMm,
+    trimHeightMm: anthology.trimHeightMm,
+    bleedMm: anthology.bleedMm,
+    safeMarginMm: anthology.safeMarginMm,
+    minPpi: anthology.minPpi,
+    title: anthology.title,
+    colourMode: colourModeText(
+      anthology.printMethod,
+      call?.allowedInks.length ? call.allowedInks : anthology.inks,
+    ),
+    inchesFirst: Boolean(findPreset(anthology.trimPreset)?.inches),
+  };
+  const bytes = format === "png" ? await renderTemplatePng(spec) : await renderTemplatePdf(spec);
+  return new Response(new Uint8Array(bytes), {
+    headers: {
+      "content-type": format === "png" ? "image/png" : "application/pdf",
+      "content-disposition": `attachment; filename="${templateFileName(anthology.slug, spec, format as TemplateFormat)}"`,
+      "content-length": String(bytes.byteLength),
+      "cache-control": "no-cache",
+    },
+  });
+});

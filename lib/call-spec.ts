@@ -1,0 +1,103 @@
+/**
+ * The print spec a contributor needs to make a piece, in plain words, drawn from the anthology's
+ * spec columns: trim, bleed, size with bleed, safe margin, resolution, pixel size and colour mode.
+ * Pure; shown on the studio call page and the public call page.
+ */
+import type { PrintMethod } from "@/lib/domain";
+import { formatLength } from "@/lib/format";
+import { bleedBoxOf, pixelsFor } from "@/lib/print/spec";
+import { findPreset } from "@/lib/print/sizes";
+import { mmToIn } from "@/lib/print/units";
+
+export interface CallSpecSource {
+  trimPreset: string;
+  trimWidthMm: number;
+  trimHeightMm: number;
+  bleedMm: number;
+  safeMarginMm: number;
+  minPpi: number;
+  printMethod: PrintMethod;
+  inks: string[];
+}
+
+export interface CallSpecSummary {
+  rows: { key: string; label: string; value: string }[];
+  /** Trim plus bleed at the minimum resolution: the size to draw or scan at. */
+  pixels: { widthPx: number; heightPx: number; ppi: number };
+  colourMode: string;
+}
+
+/** The colour mode files must be in for a print method; `inks` are the inks a piece may use. */
+export function colourModeText(printMethod: PrintMethod, inks: readonly string[]): string {
+  switch (printMethod) {
+    case "duplicator":
+      // Stencil duplicators print one ink per drum pass (REFERENCE §9, Fancyclopedia "Mimeography");
+      // one greyscale file per ink is common practice, no source.
+      return inks.length > 1
+        ? `One greyscale file per ink (${inks.join(", ")}), dark where that ink prints`
+        : `Greyscale, dark where the ${inks[0] ?? "black"} ink prints`;
+    case "laser-black":
+      return "Greyscale; colour files print in black only, as greys";
+    case "laser-colour":
+    case "inkjet":
+      return "RGB colour (sRGB); CMYK files are converted by the printer";
+  }
+}
+
+function sizeBothUnits(widthMm: number, heightMm: number, inchesFirst: boolean): string {
+  const mm = `${Number(widthMm.toFixed(2))} x ${Number(heightMm.toFixed(2))} mm`;
+  const inches = `${Number(mmToIn(widthMm).toFixed(3))} x ${Number(mmToIn(heightMm).toFixed(3))} in`;
+  return inchesFirst ? `${inches} (${mm})` : `${mm} (${inches})`;
+}
+
+/** The spec summary rows for an anthology; `allowedInks` narrows the inks to the call's. */
+export function callSpecSummary(
+  a: CallSpecSource,
+  allowedInks?: readonly string[],
+): CallSpecSummary {
+  const preset = findPreset(a.trimPreset);
+  const inchesFirst = Boolean(preset?.inches);
+  const trimMm = `${Number(a.trimWidthMm.toFixed(2))} x ${Number(a.trimHeightMm.toFixed(2))} mm`;
+  const presetName = preset
+    ? `${preset.label}${a.trimWidthMm > a.trimHeightMm ? ", landscape" : ""}`
+    : "";
+  const trimText = preset?.inches
+    ? `${presetName}, ${trimMm}`
+    : preset
+      ? `${presetName}, ${sizeBothUnits(a.trimWidthMm, a.trimHeightMm, false)}`
+      : sizeBothUnits(a.trimWidthMm, a.trimHeightMm, false);
+  const withBleed = bleedBoxOf({ ...a });
+  const { widthPx, heightPx } = pixelsFor(withBleed, a.minPpi);
+  const inks = allowedInks && allowedInks.length ? [...allowedInks] : a.inks;
+  const colourMode = colourModeText(a.printMethod, inks);
+  return {
+    pixels: { widthPx, heightPx, ppi: a.minPpi },
+    colourMode,
+    rows: [
+      { key: "trim", label: "Trim (finished page)", value: trimText },
+      {
+        key: "bleed",
+        label: "Bleed",
+        value: `${formatLength(a.bleedMm)} past the trim on every side`,
+      },
+      {
+        key: "with-bleed",
+        label: "Page with bleed",
+        value: sizeBothUnits(withBleed.widthMm, withBleed.heightMm, inchesFirst),
+      },
+      {
+        key: "safe",
+        label: "Safe margin",
+        value: `${formatLength(a.safeMarginMm)} inside the trim: keep words and faces within it`,
+      },
+      { key: "ppi", label: "Resolution", value: `at least ${a.minPpi} ppi at print size` },
+      {
+        key: "pixels",
+        label: "Pixel size",
+        value: `${widthPx} x ${heightPx} px (page with bleed at ${a.minPpi} ppi)`,
+      },
+      { key: "colour", label: "Colour", value: colourMode },
+      { key: "files", label: "Files", value: "PNG, JPEG, TIFF or PDF, one file per page" },
+    ],
+  };
+}

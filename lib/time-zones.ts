@@ -1,0 +1,193 @@
+/**
+ * Wall-clock times in an IANA time zone and the UTC instants they name. Pure; runs in the
+ * browser and on the server alike (only the built-in Intl API, which carries the tz database).
+ * Calls store UTC instants plus the zone the editor wrote them in, and are shown in that zone.
+ */
+
+/** A wall-clock time as a `datetime-local` input gives it: "2025-07-01T12:00" (seconds optional). */
+export const LOCAL_DATE_TIME = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2}))?$/;
+
+/** True when the built-in tz database knows this zone name (e.g. "Europe/Lisbon", "UTC"). */
+export function isValidTimeZone(zone: string): boolean {
+  if (!zone || zone.length > 64) return false;
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Every zone the runtime knows, plus UTC, sorted; for the zone picker. */
+export function allTimeZones(): string[] {
+  const zones =
+    typeof Intl.supportedValuesOf === "function" ? Intl.supportedValuesOf("timeZone") : [];
+  return Array.from(new Set(["UTC", ...zones])).sort((a, b) => a.localeCompare(b));
+}
+
+/** Zones grouped by their region ("Europe", "America", …), regions in order, UTC on its own first. */
+export function timeZonesByRegion(
+  zones: readonly string[] = allTimeZones(),
+): { region: string; zones: string[] }[] {
+  const groups = new Map<string, string[]>();
+  for (const zone of zones) {
+    const region = zone.includes("/") ? zone.slice(0, zone.indexOf("/")) : "Other";
+    (groups.get(region) ?? groups.set(region, []).get(region)!).push(zone);
+  }
+  return [...groups.entries()]
+    .sort(([a], [b]) => (a === "Other" ? -1 : b === "Other" ? 1 : a.localeCompare(b)))
+    .map(([region, list]) => ({
+      region: region === "Other" ? "UTC and others" : region,
+      zones: list,
+    }));
+}
+
+const partsFormatters = new Map<string, Intl.DateTimeFormat>();
+
+function partsFormatter(zone: string): Intl.DateTimeFormat {
+  let formatter = partsFormatters.get(zone);
+  if (!formatter) {
+    formatter = new Intl.DateTimeFormat("en-US", {
+      timeZone: zone,
+      hourCycle: "h23",
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      second: "2-digit",
+    });
+    partsFormatters.set(zone, formatter);
+  }
+  return formatter;
+}
+
+/** The wall clock in `zone` at an instant, as numbers. */
+function wallClock(instantMs: number, zone: string) {
+  const parts: Record<string, number> = {};
+  for (const part of partsFormatter(zone).formatToParts(new Date(instantMs))) {
+    if (part.type !== "literal") parts[part.type] = Number(part.value);
+  }
+  return {
+    year: parts.year ?? 1970,
+    month: parts.month ?? 1,
+    day: parts.day ?? 1,
+    hour: (parts.hour ?? 0) % 24,
+    minute: parts.minute ?? 0,
+    second: parts.second ?? 0,
+  };
+}
+
+/** How far the zone's wall clock is ahead of UTC at an instant, in minutes (Lisbon in July: 60). */
+export function zoneOffsetMinutes(instant: Date, zone: string): number {
+  const ms = Math.floor(instant.getTime() / 1000) * 1000;
+  const w = wallClock(ms, zone);
+  return Math.round(
+    (Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) - ms) / 60_000,
+  );
+}
+
+export type ZonedToUtc =
+  | {
+      ok: true;
+      instant: Date;
+      /** the wall time occurs twice (clocks went back); the earlier one was taken */ ambiguous: boolean;
+    }
+  | { ok: false; reason: "bad-format" | "bad-zone" | "skipped" };
+
+/**
+ * The UTC instant a wall-clock time in `zone` names. A time the clocks skip when they go forward
+ * does not exist and is refused ("skipped"); a time that happens twice when they go back is read
+ * as the first one.
+ */
+export function zonedToUtc(local: string, zone: string): ZonedToUtc {
+  const match = LOCAL_DATE_TIME.exec(local);
+  if (!match) return { ok: false, reason: "bad-format" };
+  if (!isValidTimeZone(zone)) return { ok: false, reason: "bad-zone" };
+  const [y, mo, d, h, mi, s] = match.slice(1).map((v) => Number(v ?? 0)) as [
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+  ];
+  const asUtc = Date.UTC(y, mo - 1, d, h, mi, s);
+  const check = new Date(asUtc);
+  if (
+    check.getUTCFullYear() !== y ||
+    check.getUTCMonth() !== mo - 1 ||
+    check.getUTCDate() !== d ||
+    h > 23 ||
+    mi > 59 ||
+    s > 59
+  ) {
+    return { ok: false, reason: "bad-format" };
+  }
+  // Zone offsets near the wall time: whichever offsets make the wall time come back unchanged are
+  // the instants it names (none in a gap, two in an overlap).
+  const offsets = new Set(
+    [-1, 0, 1].map((days) => zoneOffsetMinutes(new Date(asUtc + days * 43_200_000), zone)),
+  );
+  const candidates = [...offsets]
+    .map((offset) => asUtc - offset * 60_000)
+    .filter((instant) => {
+      const w = wallClock(instant, zone);
+      return Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) === asUtc;
+    })
+    .sort((a, b) => a - b);
+  const first = candidates[0];
+  if (first === undefined) return { ok: false, reason: "skipped" };
+  return { ok: true, instant: new Date(first), ambiguous: candidates.length > 1 };
+}
+
+/** The wall-clock time of an instant in `zone`, in the `datetime-local` form "2025-07-01T12:00". */
+export function utcToZonedLocal(instant: Date, zone: string): string {
+  const w = wallClock(instant.getTime(), zone);
+  const pad = (n: number, width = 2) => String(n).padStart(width, "0");
+  return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}T${pad(w.hour)}:${pad(w.minute)}`;
+}
+
+/** "UTC+1", "UTC−3:30" or "UTC" for a zone at an instant. */
+export function offsetLabel(instant: Date, zone: string): string {
+  const minutes = zoneOffsetMinutes(instant, zone);
+  if (minutes === 0) return "UTC";
+  const sign = minutes > 0 ? "+" : "−";
+  const abs = Math.abs(minutes);
+  const hours = Math.floor(abs / 60);
+  const rest = abs % 60;
+  return `UTC${sign}${hours}${rest ? `:${String(rest).padStart(2, "0")}` : ""}`;
+}
+
+/** Named parts of an instant's date in a zone, read from Intl so ICU punctuation does not leak in. */
+function dateWords(instant: Date, zone: string) {
+  const parts: Record<string, string> = {};
+  const formatter = new Intl.DateTimeFormat("en-GB", {
+    timeZone: zone,
+    weekday: "long",
+    day: "numeric",
+    month: "long",
+    year: "numeric",
+  });
+  for (const part of formatter.formatToParts(instant))
+    if (part.type !== "literal") parts[part.type] = part.value;
+  return {
+    weekday: parts.weekday ?? "",
+    day: parts.day ?? "",
+    month: parts.month ?? "",
+    year: parts.year ?? "",
+  };
+}
+
+/** An instant for people, in the zone it was written in: "Sunday 3 August 2025, 17:00 (Europe/Lisbon, UTC+1)". */
+export function formatInZone(instant: Date, zone: string): string {
+  const d = dateWords(instant, zone);
+  const time = utcToZonedLocal(instant, zone).slice(11, 16);
+  return `${d.weekday} ${d.day} ${d.month} ${d.year}, ${time} (${zone}, ${offsetLabel(instant, zone)})`;
+}
+
+/** Just the date in the zone: "3 August 2025". */
+export function formatDateInZone(instant: Date, zone: string): string {
+  const d = dateWords(instant, zone);
+  return `${d.day} ${d.month} ${d.year}`;
+}
