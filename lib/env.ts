@@ -18,6 +18,12 @@ const envSchema = z.object({
   OUTBOX_URL: z.url("must be the SMTP sink's HTTP address, e.g. http://127.0.0.1:4526").optional(),
   UPLOADTHING_TOKEN: z.string().optional(),
   UPLOADTHING_INGEST_URL: z.url().optional(),
+  /** Only UTApi (deleting files, the demo seed) talks to it. */
+  UPLOADTHING_API_URL: z.url().optional(),
+  /** Where the ingest sends its signed "upload finished" hook; must be reachable from it. */
+  UPLOADTHING_CALLBACK_URL: z.url().optional(),
+  /** The SDK's own log level; its tags are case-sensitive, so a bad value is caught here. */
+  UPLOADTHING_LOG_LEVEL: z.enum(["All", "Trace", "Debug", "Info", "Warning", "Error", "Fatal", "None"]).default("Warning"),
   FILE_HOST_URL: z.url().optional(),
   MAX_UPLOAD_MB: z.coerce.number().positive().max(512).default(32),
   MAX_IMAGE_MEGAPIXELS: z.coerce.number().positive().max(1000).default(120),

@@ -1,0 +1,276 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { PieceStatusBadge } from "@/components/piece-status-badge";
+import { SpecOverlay } from "@/components/spec-overlay";
+import { SpecReport } from "@/components/spec-report";
+import { Notice } from "@/components/ui/notice";
+import { VerdictBadge } from "@/components/verdict-badge";
+import {
+  findCall,
+  getPieceDetail,
+  type PageView,
+  type VersionView,
+} from "@/db/queries/submissions";
+import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
+import { env } from "@/lib/env";
+import { canMove } from "@/lib/pieces/status";
+import { uploadsAllowed, uploadsClosedReason } from "@/lib/submissions/ingest";
+import { AltTextEditor } from "./_components/alt-text-editor";
+import { PageUpload } from "./_components/page-upload";
+import { UseVersionButton } from "./_components/use-version-button";
+import { WithdrawPiece } from "./_components/withdraw-piece";
+
+type Props = { params: Promise<{ slug: string; pieceId: string }> };
+
+export const metadata = { title: "My piece" };
+
+const when = (iso: string) => new Date(iso).toISOString().replace("T", " ").slice(0, 16) + " UTC";
+
+function pageName(kind: string, pageIndex: number, pageCount: number) {
+  if (pageCount === 1) return "The page";
+  if (kind === "spread") return pageIndex === 1 ? "Left page" : "Right page";
+  return `Page ${pageIndex}`;
+}
+
+/** One of the contributor's pieces: each page's current file with its spec report, uploads, and every earlier version. */
+export default async function MyPiecePage({ params }: Props) {
+  const { slug, pieceId } = await params;
+  const { user, anthology } = await requireAnthologyAccess(
+    slug,
+    "pieces:view-own",
+    `/studio/${slug}/my-pieces/${pieceId}`,
+  );
+  const id = /^\d{1,15}$/.test(pieceId) ? Number(pieceId) : NaN;
+  const detail = Number.isSafeInteger(id) ? await getPieceDetail(id) : undefined;
+  if (
+    !detail ||
+    detail.piece.contributorId !== user.id ||
+    detail.piece.anthologyId !== anthology.id
+  )
+    notFound();
+  const { piece, pages, events } = detail;
+  const call = await findCall(anthology.id);
+  const open = uploadsAllowed(piece.status, call, anthology);
+  const spec = {
+    trimWidthMm: anthology.trimWidthMm,
+    trimHeightMm: anthology.trimHeightMm,
+    bleedMm: anthology.bleedMm,
+    safeMarginMm: anthology.safeMarginMm,
+  };
+  const maxMb = env().MAX_UPLOAD_MB;
+  const missing = pages.filter((p) => p.currentVersionId === null).length;
+
+  return (
+    <div className="flex flex-col gap-8" data-testid="my-piece-page" data-piece-id={piece.id}>
+      <header className="flex flex-col gap-2">
+        <p className="text-sm">
+          <Link href={`/studio/${anthology.slug}/my-pieces`}>← My pieces</Link>
+        </p>
+        <div className="flex flex-wrap items-center gap-3">
+          <h1 className="text-3xl font-extrabold" data-testid="piece-title">
+            {piece.title}
+          </h1>
+          <PieceStatusBadge status={piece.status} />
+          <span
+            data-testid="piece-verdict"
+            data-verdict={piece.verdict}
+            className="text-sm font-semibold"
+          >
+            <VerdictBadge verdict={piece.verdict} />
+          </span>
+        </div>
+        <p className="text-sm text-ink-soft">
+          {PIECE_KIND_LABELS[piece.kind]} · {piece.pageCount} page{piece.pageCount === 1 ? "" : "s"}{" "}
+          · inks: {piece.inks.join(", ") || "none named"} · credit: “{piece.creditLine}”
+        </p>
+        {piece.statement ? (
+          <p className="max-w-2xl whitespace-pre-line text-sm">{piece.statement}</p>
+        ) : null}
+      </header>
+
+      {piece.status === "fix-requested" ? (
+        <Notice tone="warn" title="An editor asked for a fix" testId="fix-requested">
+          Read their note in the history below, then upload new files; the piece goes back to the
+          editors when you do.
+        </Notice>
+      ) : null}
+      {!open ? (
+        <Notice tone="caution" title="Files are closed" testId="uploads-closed">
+          {uploadsClosedReason(piece.status)}
+        </Notice>
+      ) : missing > 0 ? (
+        <Notice
+          title={`${missing} page${missing === 1 ? "" : "s"} still need${missing === 1 ? "s" : ""} a file`}
+          testId="files-missing"
+        >
+          Upload one file per page: PNG, JPEG, TIFF, WebP or a one-page PDF, up to {maxMb} MB each.
+          Each file is checked against the print spec as soon as it arrives.
+        </Notice>
+      ) : null}
+
+      <div className="flex flex-col gap-10">
+        {pages.map((page) => (
+          <PageSection
+            key={page.pageIndex}
+            page={page}
+            name={pageName(piece.kind, page.pageIndex, piece.pageCount)}
+            pieceId={piece.id}
+            spec={spec}
+            open={open}
+            maxMb={maxMb}
+          />
+        ))}
+      </div>
+
+      <section aria-labelledby="history-heading" className="flex flex-col gap-2">
+        <h2 id="history-heading" className="text-xl font-semibold">
+          History
+        </h2>
+        <ol className="flex flex-col gap-1 text-sm" data-testid="piece-history">
+          {events.map((e, n) => (
+            <li key={n}>
+              <span className="font-mono text-xs text-ink-faint">{when(e.at)}</span> ·{" "}
+              {PIECE_STATUS_LABELS[e.toStatus as PieceStatus] ?? e.toStatus}
+              {e.message ? ` — ${e.message}` : ""}
+            </li>
+          ))}
+        </ol>
+      </section>
+
+      {canMove(piece.status, "withdrawn", "contributor") ? (
+        <WithdrawPiece pieceId={piece.id} title={piece.title} />
+      ) : null}
+    </div>
+  );
+}
+
+function thumbUrl(v: VersionView) {
+  return v.hasThumbnail ? `/api/file-versions/${v.id}/thumbnail` : null;
+}
+
+function PageSection({
+  page,
+  name,
+  pieceId,
+  spec,
+  open,
+  maxMb,
+}: {
+  page: PageView;
+  name: string;
+  pieceId: number;
+  spec: { trimWidthMm: number; trimHeightMm: number; bleedMm: number; safeMarginMm: number };
+  open: boolean;
+  maxMb: number;
+}) {
+  const current = page.versions.find((v) => v.id === page.currentVersionId) ?? null;
+  const others = page.versions.filter((v) => v.id !== page.currentVersionId);
+  return (
+    <section
+      aria-labelledby={`page-${page.pageIndex}-heading`}
+      className="flex flex-col gap-4"
+      data-testid={`page-${page.pageIndex}`}
+    >
+      <h2
+        id={`page-${page.pageIndex}-heading`}
+        className="border-b border-ink/10 pb-1 text-2xl font-semibold"
+      >
+        {name}
+        {current ? (
+          <span className="ml-2 text-sm font-normal text-ink-soft">
+            version {current.versionNumber}
+          </span>
+        ) : null}
+      </h2>
+      <div className="grid gap-6 md:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
+        <div className="flex flex-col gap-3">
+          {current ? (
+            <SpecOverlay
+              spec={spec}
+              measured={current.report.measured}
+              format={current.report.format}
+              thumbnailUrl={thumbUrl(current)}
+              alt={`${name}: ${current.fileName}`}
+              testId={`overlay-${page.pageIndex}`}
+            />
+          ) : (
+            <div
+              className="flex aspect-[3/4] items-center justify-center rounded border border-dashed border-ink/30 text-sm text-ink-faint"
+              data-testid={`no-file-${page.pageIndex}`}
+            >
+              No file yet
+            </div>
+          )}
+          {open ? (
+            <PageUpload
+              pieceId={pieceId}
+              pageIndex={page.pageIndex}
+              revision={page.revision}
+              maxMb={maxMb}
+              replacing={current !== null}
+            />
+          ) : null}
+        </div>
+        <div className="flex flex-col gap-4">
+          {current ? (
+            <>
+              <p className="text-xs text-ink-soft">
+                {current.fileName} · uploaded {when(current.uploadedAt)}
+              </p>
+              <SpecReport report={current.report} testId={`report-${page.pageIndex}`} />
+            </>
+          ) : null}
+          <AltTextEditor
+            pieceId={pieceId}
+            pageIndex={page.pageIndex}
+            initial={page.altText ?? ""}
+          />
+        </div>
+      </div>
+      {others.length > 0 ? (
+        <details
+          className="rounded-md border border-ink/10 bg-white/40 p-3"
+          data-testid={`versions-${page.pageIndex}`}
+        >
+          <summary className="cursor-pointer text-sm font-semibold">
+            {others.length} other version{others.length === 1 ? "" : "s"} of this page
+          </summary>
+          <ul className="mt-3 flex flex-col gap-6">
+            {others.map((v) => (
+              <li
+                key={v.id}
+                className="grid gap-4 md:grid-cols-[12rem_1fr]"
+                data-testid="older-version"
+              >
+                <SpecOverlay
+                  spec={spec}
+                  measured={v.report.measured}
+                  format={v.report.format}
+                  thumbnailUrl={thumbUrl(v)}
+                  alt={`Version ${v.versionNumber}: ${v.fileName}`}
+                />
+                <div className="flex flex-col gap-2">
+                  <p className="text-sm">
+                    <span className="font-semibold">Version {v.versionNumber}</span> · {v.fileName}{" "}
+                    · {when(v.uploadedAt)}
+                  </p>
+                  <SpecReport report={v.report} />
+                  {open ? (
+                    <UseVersionButton
+                      pieceId={pieceId}
+                      pageIndex={page.pageIndex}
+                      versionId={v.id}
+                      revision={page.revision}
+                      versionNumber={v.versionNumber}
+                    />
+                  ) : null}
+                </div>
+              </li>
+            ))}
+          </ul>
+        </details>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,73 @@
+import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
+import {
+  callRulesOf,
+  countActivePieces,
+  createPiece,
+  findCall,
+  listOwnPieces,
+  submitRefusal,
+} from "@/db/queries/submissions";
+import { apiRoute, HttpError, readJson, requireApiAccess, requireApiUser } from "@/lib/api";
+import { refusalsAsHttp } from "@/lib/submissions/http";
+import { callPhase } from "@/lib/stages";
+import { formatInZone } from "@/lib/time-zones";
+import { pieceSchemaFor } from "@/lib/validations/piece";
+
+type Context = { params: Promise<{ slug: string }> };
+
+/** The caller's own pieces in this anthology (contributors only). */
+export const GET = apiRoute(async (_request, { params }: Context) => {
+  const { slug } = await params;
+  const { user, anthology } = await requireApiAccess(slug, "pieces:view-own");
+  return Response.json({ pieces: await listOwnPieces(anthology.id, user.id) });
+});
+
+/**
+ * Sends a new piece to the anthology's open call. Anyone signed in may; a person who is not yet a
+ * member becomes a contributor. Editors, leads and finishers of the anthology are refused, as are
+ * pieces past the call's per-person limit and pieces after the call has closed.
+ */
+export const POST = apiRoute(async (request, { params }: Context) => {
+  const { slug } = await params;
+  const user = await requireApiUser();
+  const anthology = await findAnthologyBySlug(slug);
+  if (!anthology) throw new HttpError(404, `No anthology called "${slug}".`);
+  const call = await findCall(anthology.id);
+  const phase = callPhase(call, anthology.stage, new Date());
+  if (!call || !call.publishedAt || phase === "unpublished")
+    throw new HttpError(404, `${anthology.title} has no open call.`);
+  if (phase === "upcoming")
+    throw new HttpError(
+      409,
+      `The call opens on ${formatInZone(call.opensAt, call.timeZone)}; come back then to send your piece.`,
+    );
+  if (phase === "closed")
+    throw new HttpError(
+      409,
+      `The call closed on ${formatInZone(call.closesAt, call.timeZone)}; it no longer takes new pieces.`,
+    );
+  // Cheap early answer; createPiece checks again under a lock.
+  const early = submitRefusal(
+    await findRole(anthology.id, user.id),
+    await countActivePieces(anthology.id, user.id),
+    call,
+  );
+  if (early) throw new HttpError(early.status, early.message);
+  const input = await readJson(request, pieceSchemaFor(callRulesOf(call)));
+  const piece = await refusalsAsHttp(() => createPiece(anthology, call, user.id, input));
+  return Response.json(
+    {
+      piece: {
+        id: piece.id,
+        title: piece.title,
+        kind: piece.kind,
+        pageCount: piece.pageCount,
+        inks: piece.inks,
+        status: piece.status,
+        verdict: piece.verdict,
+      },
+      url: `/studio/${anthology.slug}/my-pieces/${piece.id}`,
+    },
+    { status: 201 },
+  );
+});

@@ -1,0 +1,340 @@
+import "server-only";
+/**
+ * What happens to an artwork file once it is stored: read it back, check it against the
+ * anthology's print spec, make a thumbnail, record the version with its report, move the page's
+ * current file (guarded by the page revision), recompute the piece's verdict and status, and
+ * e-mail the contributor the result. Also the upload route's permission check.
+ */
+import { createHash } from "node:crypto";
+import { and, eq, sql } from "drizzle-orm";
+import { db, schema } from "@/db";
+import type { Anthology } from "@/db/queries/anthologies";
+import { sendLoggedMail } from "@/db/queries/mail-log";
+import {
+  findCall,
+  refreshPieceVerdict,
+  SubmissionRefused,
+  type Call,
+  type Piece,
+} from "@/db/queries/submissions";
+import type { PieceStatus } from "@/lib/domain";
+import { env } from "@/lib/env";
+import { simpleHtml } from "@/lib/mail";
+import { checkArtwork, type SpecReport } from "@/lib/print/check";
+import type { PrintSpec } from "@/lib/print/spec";
+import { mayUploadFiles, statusAfterNewFile } from "@/lib/pieces/status";
+import { isPieceVerdict, PIECE_VERDICT_LABELS, type PieceVerdict } from "@/lib/pieces/verdict";
+import { isCallOpen } from "@/lib/stages";
+import { maxUploadBytes, readStoredFile } from "@/lib/uploads";
+import type { ArtworkUploadInput } from "@/lib/validations/piece";
+import { makeThumbnail } from "./thumbnail";
+
+const p = schema.pieces;
+const pp = schema.piecePages;
+const fv = schema.fileVersions;
+
+/** The spec one page file is checked against: the anthology's, one page per file, the piece's inks. */
+export function specForPiece(anthology: Anthology, piece: Pick<Piece, "inks">): PrintSpec {
+  return {
+    trimWidthMm: anthology.trimWidthMm,
+    trimHeightMm: anthology.trimHeightMm,
+    bleedMm: anthology.bleedMm,
+    safeMarginMm: anthology.safeMarginMm,
+    minPpi: anthology.minPpi,
+    pagesExpected: 1,
+    printMethod: anthology.printMethod,
+    inks: piece.inks.length > 0 ? piece.inks : anthology.inks,
+  };
+}
+
+/** Whether this piece's files may change now: the call is open, or an editor asked for a fix. */
+export function uploadsAllowed(
+  status: PieceStatus,
+  call: Call | undefined,
+  anthology: Pick<Anthology, "stage">,
+  now = new Date(),
+): boolean {
+  return mayUploadFiles(status, isCallOpen(call ?? null, anthology.stage, now));
+}
+
+/** Why uploads to this piece are closed, in words for the contributor. */
+export function uploadsClosedReason(status: PieceStatus): string {
+  if (status === "withdrawn") return "You withdrew this piece, so it takes no more files.";
+  if (status === "declined")
+    return "This piece was not taken for this issue, so it takes no more files.";
+  return "The call has closed, so files can no longer be changed unless an editor asks you for a fix.";
+}
+
+export type UploadMetadata = {
+  pieceId: number;
+  pageIndex: number;
+  expectedRevision: number;
+  userId: string;
+};
+
+/**
+ * The upload route's permission check, before any byte is sent: the piece is the caller's, the
+ * page exists, the page has not changed since the caller's screen showed it, and the piece takes
+ * files (open call or a fix asked for). Also refuses files over the size limit with the numbers.
+ */
+export async function authoriseArtworkUpload(
+  userId: string | null,
+  input: ArtworkUploadInput,
+  files: readonly { name: string; size: number }[],
+  now = new Date(),
+): Promise<UploadMetadata> {
+  if (!userId) throw new SubmissionRefused(403, "Sign in to upload files.");
+  if (files.length !== 1) throw new SubmissionRefused(400, "Upload one file per page.");
+  const file = files[0]!;
+  const limit = maxUploadBytes();
+  if (file.size > limit)
+    throw new SubmissionRefused(
+      413,
+      `"${file.name}" is ${(file.size / 1048576).toFixed(1)} MB; a page file may be at most ${env().MAX_UPLOAD_MB} MB. Export it at the print size (or as a compressed PNG or high-quality JPEG) and try again.`,
+    );
+  const [row] = await db
+    .select({ piece: p, anthology: schema.anthologies, page: pp })
+    .from(p)
+    .innerJoin(schema.anthologies, eq(schema.anthologies.id, p.anthologyId))
+    .leftJoin(pp, and(eq(pp.pieceId, p.id), eq(pp.pageIndex, input.pageIndex)))
+    .where(eq(p.id, input.pieceId))
+    .limit(1);
+  if (!row || row.piece.contributorId !== userId)
+    throw new SubmissionRefused(403, "You can only upload files to your own pieces.");
+  if (!row.page) throw new SubmissionRefused(404, `This piece has no page ${input.pageIndex}.`);
+  const call = await findCall(row.anthology.id);
+  if (!uploadsAllowed(row.piece.status, call, row.anthology, now))
+    throw new SubmissionRefused(409, uploadsClosedReason(row.piece.status));
+  if (row.page.revision !== input.expectedRevision)
+    throw new SubmissionRefused(
+      409,
+      `Page ${input.pageIndex} was replaced in another window since this one loaded; reload to see its current file before replacing it.`,
+    );
+  return {
+    pieceId: input.pieceId,
+    pageIndex: input.pageIndex,
+    expectedRevision: input.expectedRevision,
+    userId,
+  };
+}
+
+export type StoredUpload = {
+  key: string;
+  name: string;
+  size: number;
+  type: string;
+  ufsUrl: string;
+  fileHash?: string | null;
+};
+
+export type IngestRequest = {
+  pieceId: number;
+  pageIndex: number;
+  /** The revision the uploader saw; null takes the page whatever its revision (the seed). */
+  expectedRevision: number | null;
+  uploadedBy: string;
+  file: StoredUpload;
+};
+
+export type IngestResult = {
+  versionId: number;
+  versionNumber: number;
+  verdict: SpecReport["verdict"];
+  pieceVerdict: PieceVerdict;
+  /** False when another upload replaced the page first: the file is kept as a version, not used. */
+  current: boolean;
+  revision: number;
+  status: PieceStatus;
+};
+
+export type IngestOptions = {
+  /** The file's bytes when the caller has them already (the seed); otherwise read from ufsUrl. */
+  bytes?: Uint8Array;
+  /** E-mail the contributor the report (default true). */
+  notify?: boolean;
+  now?: Date;
+  /** Check the call window and piece status again at completion (default true). */
+  enforceWindow?: boolean;
+};
+
+/** Runs the whole pipeline for one stored upload; see the module comment. Refusals throw SubmissionRefused. */
+export async function ingestUpload(
+  request: IngestRequest,
+  options: IngestOptions = {},
+): Promise<IngestResult> {
+  const now = options.now ?? new Date();
+  const [ctx] = await db
+    .select({ piece: p, anthology: schema.anthologies })
+    .from(p)
+    .innerJoin(schema.anthologies, eq(schema.anthologies.id, p.anthologyId))
+    .where(eq(p.id, request.pieceId))
+    .limit(1);
+  if (!ctx) throw new SubmissionRefused(404, "There is no such piece.");
+  if (ctx.piece.contributorId !== request.uploadedBy)
+    throw new SubmissionRefused(403, "You can only upload files to your own pieces.");
+  const call = await findCall(ctx.anthology.id);
+
+  const bytes = options.bytes ?? (await readStoredFile(request.file.ufsUrl, maxUploadBytes()));
+  const maxPixels = Math.round(env().MAX_IMAGE_MEGAPIXELS * 1e6);
+  const report = await checkArtwork(bytes, specForPiece(ctx.anthology, ctx.piece), {
+    filename: request.file.name,
+    mimeType: request.file.type,
+    maxPixels,
+  });
+  const thumbnail = await makeThumbnail(bytes, report, maxPixels);
+  const md5 = createHash("md5").update(bytes).digest("hex");
+
+  const outcome = await db.transaction(async (tx) => {
+    // The piece row first, then the page: every writer takes them in this order.
+    const [piece] = await tx.select().from(p).where(eq(p.id, request.pieceId)).for("update");
+    if (!piece) throw new SubmissionRefused(404, "There is no such piece.");
+    if (options.enforceWindow !== false && !uploadsAllowed(piece.status, call, ctx.anthology, now))
+      throw new SubmissionRefused(409, uploadsClosedReason(piece.status));
+    const [page] = await tx
+      .select()
+      .from(pp)
+      .where(and(eq(pp.pieceId, request.pieceId), eq(pp.pageIndex, request.pageIndex)))
+      .for("update");
+    if (!page) throw new SubmissionRefused(404, `This piece has no page ${request.pageIndex}.`);
+
+    // A hook delivered twice must not make two versions of one stored file.
+    const [already] = await tx
+      .select({ id: fv.id, versionNumber: fv.versionNumber, verdict: fv.verdict })
+      .from(fv)
+      .where(and(eq(fv.piecePageId, page.id), eq(fv.storageKey, request.file.key)));
+    if (already)
+      return {
+        versionId: already.id,
+        versionNumber: already.versionNumber,
+        current: page.currentVersionId === already.id,
+        revision: page.revision,
+        pieceVerdict: (isPieceVerdict(piece.verdict) ? piece.verdict : "missing") as PieceVerdict,
+        status: piece.status,
+        duplicate: true,
+        title: piece.title,
+      };
+
+    const [last] = await tx
+      .select({ n: sql<number>`COALESCE(MAX(${fv.versionNumber}), 0)` })
+      .from(fv)
+      .where(eq(fv.piecePageId, page.id));
+    const versionNumber = Number(last?.n ?? 0) + 1;
+    const [inserted] = await tx
+      .insert(fv)
+      .values({
+        piecePageId: page.id,
+        versionNumber,
+        storageKey: request.file.key,
+        fileName: request.file.name.slice(0, 255),
+        mimeType: (request.file.type || "application/octet-stream").slice(0, 100),
+        sizeBytes: bytes.length,
+        md5,
+        report,
+        verdict: report.verdict,
+        thumbnailWebp: thumbnail?.webp ?? null,
+        thumbnailWidthPx: thumbnail?.widthPx ?? null,
+        thumbnailHeightPx: thumbnail?.heightPx ?? null,
+        uploadedBy: request.uploadedBy,
+      })
+      .$returningId();
+    if (!inserted) throw new Error("file version insert returned no id");
+
+    const current = request.expectedRevision === null || request.expectedRevision === page.revision;
+    const revision = current ? page.revision + 1 : page.revision;
+    if (current)
+      await tx
+        .update(pp)
+        .set({ currentVersionId: inserted.id, revision })
+        .where(eq(pp.id, page.id));
+    const pieceVerdict = await refreshPieceVerdict(tx, piece.id);
+
+    const status = statusAfterNewFile(piece.status);
+    if (status !== piece.status) {
+      await tx.update(p).set({ status }).where(eq(p.id, piece.id));
+      await tx.insert(schema.pieceEvents).values({
+        pieceId: piece.id,
+        actorId: request.uploadedBy,
+        fromStatus: piece.status,
+        toStatus: status,
+        message: `New file for page ${request.pageIndex} (version ${versionNumber})`,
+      });
+    } else {
+      // Touch the piece so "last updated" reflects the new file.
+      await tx.update(p).set({ updatedAt: now }).where(eq(p.id, piece.id));
+    }
+    return {
+      versionId: inserted.id,
+      versionNumber,
+      current,
+      revision,
+      pieceVerdict,
+      status,
+      duplicate: false,
+      title: piece.title,
+    };
+  });
+
+  if (!outcome.duplicate && options.notify !== false) {
+    await mailReport(ctx.anthology, request, outcome, report).catch((error: unknown) =>
+      console.error("spec report mail failed", error),
+    );
+  }
+  return {
+    versionId: outcome.versionId,
+    versionNumber: outcome.versionNumber,
+    verdict: report.verdict,
+    pieceVerdict: outcome.pieceVerdict,
+    current: outcome.current,
+    revision: outcome.revision,
+    status: outcome.status,
+  };
+}
+
+const VERDICT_WORDS: Record<SpecReport["verdict"], string> = {
+  pass: PIECE_VERDICT_LABELS.pass,
+  note: PIECE_VERDICT_LABELS.note,
+  warning: PIECE_VERDICT_LABELS.warning,
+  blocker: PIECE_VERDICT_LABELS.blocker,
+};
+
+const SEVERITY_WORDS = { blocker: "Must fix", warning: "Should fix", note: "Note" } as const;
+
+/** The spec report by e-mail: the verdict, each finding with its fix, and a link to the piece. */
+async function mailReport(
+  anthology: Anthology,
+  request: IngestRequest,
+  outcome: { versionId: number; versionNumber: number; current: boolean; title: string },
+  report: SpecReport,
+) {
+  const [person] = await db
+    .select({ email: schema.users.email, name: schema.users.name })
+    .from(schema.users)
+    .where(eq(schema.users.id, request.uploadedBy));
+  if (!person?.email) return;
+  const href = `${env().AUTH_URL.replace(/\/$/, "")}/studio/${anthology.slug}/my-pieces/${request.pieceId}`;
+  const subject = `Spec check: "${outcome.title}", page ${request.pageIndex}: ${VERDICT_WORDS[report.verdict]}`;
+  const paragraphs = [
+    `${person.name ? `Hello ${person.name}, w` : "W"}e checked ${request.file.name} (version ${outcome.versionNumber} of page ${request.pageIndex} of "${outcome.title}") against the print spec of ${anthology.title}.`,
+    report.findings.length === 0
+      ? "It meets the spec: nothing to fix."
+      : `Verdict: ${VERDICT_WORDS[report.verdict]}. What we found:`,
+    ...report.findings.map(
+      (f) => `${SEVERITY_WORDS[f.severity]}: ${f.message}${f.fix ? ` Fix: ${f.fix}` : ""}`,
+    ),
+    ...(outcome.current
+      ? []
+      : [
+          "Another upload replaced this page while yours was on its way, so yours is kept as a version but not used. You can choose it on the piece's page.",
+        ]),
+  ];
+  await sendLoggedMail({
+    anthologyId: anthology.id,
+    pieceId: request.pieceId,
+    kind: "spec-report",
+    to: person.email,
+    subject,
+    text: `${paragraphs.join("\n\n")}\n\nSee the report with the trim, bleed and safe-area lines: ${href}\n`,
+    html: simpleHtml(paragraphs, { href, label: "See the report" }),
+    dedupeKey: `spec-report-${outcome.versionId}`,
+  });
+}

@@ -1,0 +1,123 @@
+import { z } from "zod";
+import { PIECE_KINDS, type PieceKind } from "@/lib/domain";
+
+/** What an open call allows a piece to be; the form and the route handler check against it. */
+export type CallRules = { allowedKinds: PieceKind[]; maxRunPages: number; allowedInks: string[] };
+
+/** The most pages any run may have, whatever a call says (a booklet page count cap). */
+export const MAX_PIECE_PAGES = 64;
+
+const pieceFields = z.object({
+  title: z
+    .string()
+    .trim()
+    .min(1, "Give the piece a title")
+    .max(200, "Keep the title under 200 characters"),
+  kind: z.enum(PIECE_KINDS, { error: "Choose what kind of piece this is" }),
+  pageCount: z.coerce
+    .number({ error: "Page count must be a number" })
+    .int("Whole pages only")
+    .min(1, "At least one page")
+    .max(MAX_PIECE_PAGES, `At most ${MAX_PIECE_PAGES} pages`),
+  inks: z.array(z.string().trim().min(1).max(40)).max(8, "At most 8 inks").default([]),
+  creditLine: z
+    .string()
+    .trim()
+    .min(2, "Say how your name should appear in the credits")
+    .max(200, "Keep the credit line under 200 characters"),
+  statement: z
+    .string()
+    .trim()
+    .max(1200, "Keep the statement under 1200 characters")
+    .optional()
+    .default(""),
+  altTexts: z
+    .array(z.string().trim().max(1000, "Keep each description under 1000 characters"))
+    .max(MAX_PIECE_PAGES)
+    .default([]),
+});
+
+/** The piece form's shape without any call's rules (for types and the first parse). */
+export const pieceInputSchema = pieceFields;
+export type PieceInput = z.input<typeof pieceFields>;
+export type PieceParsed = z.output<typeof pieceFields>;
+
+/** The pages a kind of piece has: a single page, a spread of two, a run of 2 up to the call's limit. */
+export function pageCountRange(kind: PieceKind, maxRunPages: number): { min: number; max: number } {
+  if (kind === "single") return { min: 1, max: 1 };
+  if (kind === "spread") return { min: 2, max: 2 };
+  return { min: 2, max: Math.max(2, Math.min(maxRunPages, MAX_PIECE_PAGES)) };
+}
+
+/** Problems with a parsed piece against a call's rules, keyed by field. Empty when it fits. */
+export function pieceProblems(
+  piece: PieceParsed,
+  rules: CallRules,
+): { path: string; message: string }[] {
+  const out: { path: string; message: string }[] = [];
+  if (!rules.allowedKinds.includes(piece.kind)) {
+    out.push({ path: "kind", message: "This call does not take that kind of piece" });
+  } else {
+    const range = pageCountRange(piece.kind, rules.maxRunPages);
+    if (piece.pageCount < range.min || piece.pageCount > range.max) {
+      out.push({
+        path: "pageCount",
+        message:
+          range.min === range.max
+            ? `This kind of piece has ${range.min} page${range.min > 1 ? "s" : ""}`
+            : `A run has ${range.min} to ${range.max} pages in this call`,
+      });
+    }
+  }
+  const allowed = new Map(rules.allowedInks.map((ink) => [ink.toLowerCase(), ink]));
+  const unknown = piece.inks.filter((ink) => !allowed.has(ink.toLowerCase()));
+  if (unknown.length > 0) {
+    out.push({
+      path: "inks",
+      message: `This call prints in ${rules.allowedInks.join(", ") || "process colour"}; ${unknown.join(", ")} is not one of them`,
+    });
+  } else if (new Set(piece.inks.map((i) => i.toLowerCase())).size !== piece.inks.length) {
+    out.push({ path: "inks", message: "Each ink once" });
+  } else if (rules.allowedInks.length > 0 && piece.inks.length === 0) {
+    out.push({ path: "inks", message: "Tick the inks your piece uses" });
+  }
+  if (piece.altTexts.length > piece.pageCount) {
+    out.push({ path: "altTexts", message: "One description per page at most" });
+  }
+  return out;
+}
+
+/** The schema the form and the route handler use for one call: fields plus that call's rules. */
+export function pieceSchemaFor(rules: CallRules) {
+  return pieceFields.superRefine((piece, ctx) => {
+    for (const problem of pieceProblems(piece, rules)) {
+      ctx.addIssue({ code: "custom", path: [problem.path], message: problem.message });
+    }
+  });
+}
+
+/** The contributor's actions on their own piece. */
+export const pieceActionSchema = z.discriminatedUnion("action", [
+  z.object({ action: z.literal("withdraw"), reason: z.string().trim().max(500).optional() }),
+  z.object({
+    action: z.literal("use-version"),
+    pageIndex: z.number().int().min(1),
+    versionId: z.number().int().positive(),
+    expectedRevision: z.number().int().min(0),
+  }),
+  z.object({
+    action: z.literal("alt-text"),
+    pageIndex: z.number().int().min(1),
+    altText: z.string().trim().max(1000, "Keep the description under 1000 characters"),
+  }),
+]);
+export type PieceAction = z.infer<typeof pieceActionSchema>;
+
+/** What the upload route accepts with each file. */
+export const artworkUploadInputSchema = z.object({
+  pieceId: z.number().int().positive(),
+  pageIndex: z.number().int().min(1).max(MAX_PIECE_PAGES),
+  /** The page revision the contributor's screen showed; a stale one means another tab replaced it. */
+  expectedRevision: z.number().int().min(0),
+});
+export type ArtworkUploadInput = z.infer<typeof artworkUploadInputSchema>;

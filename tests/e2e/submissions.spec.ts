@@ -1,0 +1,161 @@
+// A contributor answers an open call: signs up from the public page, creates a piece, uploads a
+// page without bleed, reads the finding and its fix, uploads a corrected file and sees it pass.
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { expect, test, type APIRequestContext } from "@playwright/test";
+import sharp from "sharp";
+import { demoAccount, uniqueEmail } from "../helpers/demo";
+import { waitForMessage } from "../helpers/outbox";
+import { signInWithPassword } from "./helpers";
+
+let workDir: string;
+
+test.beforeAll(() => {
+  workDir = mkdtempSync(join(tmpdir(), "quireline-submissions-"));
+});
+test.afterAll(() => {
+  rmSync(workDir, { recursive: true, force: true });
+});
+
+/**
+ * A greyscale page at 300 ppi whose mid-grey artwork runs to every edge. Half letter is
+ * 1650 x 2550 px at 300 ppi, 1725 x 2625 px with 1/8 in bleed (REFERENCE.md §5.1, worked values).
+ */
+async function pagePng(name: string, widthPx: number, heightPx: number): Promise<string> {
+  const file = join(workDir, name);
+  await sharp({
+    create: {
+      width: widthPx,
+      height: heightPx,
+      channels: 3,
+      background: { r: 120, g: 120, b: 120 },
+    },
+  })
+    .toColourspace("b-w")
+    .withDensity(300)
+    .png()
+    .toFile(file);
+  return file;
+}
+
+async function json(
+  request: APIRequestContext,
+  method: "GET" | "POST" | "PUT",
+  url: string,
+  data?: unknown,
+) {
+  const response = await request.fetch(url, { method, data });
+  const body = await response.json();
+  expect(
+    response.ok(),
+    `${method} ${url} answered ${response.status()}: ${JSON.stringify(body)}`,
+  ).toBe(true);
+  return body;
+}
+
+/** Odile makes a fresh half-letter anthology with a call that opened yesterday, through the app's own API. */
+async function openFreshCall(request: APIRequestContext): Promise<string> {
+  const title = `Estuary Notes ${Date.now().toString(36)}`;
+  const { anthology } = await json(request, "POST", "/api/anthologies", {
+    title,
+    pressName: "Marrowbend Print Collective",
+    trimChoice: "half-letter",
+    orientation: "portrait",
+    unit: "in",
+    bleed: 0.125,
+    safeMargin: 0.25,
+    binding: "saddle-stitch",
+    pageCountTarget: 16,
+    maxPages: 32,
+    coverStock: "self",
+    paperGsm: 90,
+    printMethod: "duplicator",
+    inks: ["black"],
+    inksPerPass: 1,
+    minPpi: 300,
+  });
+  const slug: string = anthology.slug;
+  const { form } = await json(request, "GET", `/api/anthologies/${slug}/call`);
+  const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
+  await json(request, "PUT", `/api/anthologies/${slug}/call`, {
+    ...form,
+    theme: "Notes from the estuary",
+    brief: "Drawings of the river mouth at low water, printed in black on the duplicator.",
+    opensAt: `${yesterday}T09:00`,
+    timeZone: "UTC",
+  });
+  await json(request, "POST", `/api/anthologies/${slug}/stage`, { to: "call-open" });
+  return slug;
+}
+
+test("a contributor signs up from an open call, uploads a page without bleed, fixes it and passes", async ({
+  browser,
+}) => {
+  // Two uploads, each checked on the server, plus a sign-up: more than the default minute on a busy machine.
+  test.setTimeout(180_000);
+  const odile = demoAccount("odile");
+  const editor = await browser.newContext();
+  const editorPage = await editor.newPage();
+  await signInWithPassword(editorPage, odile.email, odile.password);
+  const slug = await openFreshCall(editorPage.request);
+  await editor.close();
+
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  await page.goto(`/calls/${slug}`);
+  await page.getByTestId("send-work").click();
+  await page.waitForURL(/\/sign-in\?callbackUrl=/, { timeout: 45_000 });
+  await page.getByRole("main").getByRole("link", { name: "Create an account" }).click();
+
+  const email = uniqueEmail("wren");
+  await page.locator("#name").fill("Wren Halloway");
+  await page.locator("#email").fill(email);
+  await page.locator("#password").fill("estuary-mud-2031");
+  await page.getByRole("button", { name: "Create account" }).click();
+  await page.waitForURL(new RegExp(`/calls/${slug}/submit$`), { timeout: 45_000 });
+
+  await page.locator("#title").fill("Heron at the Sluice Gate");
+  await page.getByTestId("kind-single").check();
+  await expect(page.getByTestId("ink-black")).toBeChecked();
+  await expect(page.locator("#creditLine")).toHaveValue("Wren Halloway");
+  await page.locator("#altTexts-0").fill("A heron stands on a sluice gate in thick grey fog.");
+  await page.getByTestId("save-piece").click();
+  await page.waitForURL(new RegExp(`/studio/${slug}/my-pieces/\\d+$`), { timeout: 45_000 });
+  await expect(page.getByTestId("piece-title")).toHaveText("Heron at the Sluice Gate");
+  await expect(page.getByTestId("piece-verdict")).toHaveAttribute("data-verdict", "missing");
+
+  // 1650 x 2550 px is the trim without bleed, and the grey runs to every edge.
+  await page
+    .getByTestId("upload-input-1")
+    .setInputFiles(await pagePng("heron-no-bleed.png", 1650, 2550));
+  const report = page.getByTestId("report-1");
+  const noBleed = report.locator('[data-testid="finding"][data-code="no-bleed"]');
+  await expect(noBleed).toBeVisible({ timeout: 30_000 });
+  await expect(noBleed).toHaveAttribute("data-severity", "blocker");
+  await expect(noBleed).toContainText("1650 x 2550 px");
+  await expect(noBleed.getByTestId("finding-fix")).toContainText("1725 x 2625 px");
+  await expect(page.getByTestId("piece-verdict")).toHaveAttribute("data-verdict", "blocker");
+  await expect(page.getByTestId("overlay-1").locator("image")).toHaveCount(1);
+
+  const mail = await waitForMessage({ to: email, subject: /Spec check/, timeoutMs: 15_000 });
+  expect(mail.text).toContain("1725 x 2625 px");
+
+  // The corrected file: trim plus 1/8 in bleed on every side.
+  await page
+    .getByTestId("upload-input-1")
+    .setInputFiles(await pagePng("heron-with-bleed.png", 1725, 2625));
+  await expect(report).toHaveAttribute("data-verdict", "pass", { timeout: 30_000 });
+  await expect(report.getByTestId("finding")).toHaveCount(0);
+  await expect(page.getByTestId("piece-verdict")).toHaveAttribute("data-verdict", "pass");
+  // The first version and its report stay visible.
+  const older = page.getByTestId("versions-1");
+  await older.locator("summary").click();
+  await expect(older.getByTestId("older-version")).toHaveCount(1);
+  await expect(older.locator('[data-code="no-bleed"]')).toBeVisible();
+
+  await page.goto(`/studio/${slug}/my-pieces`);
+  await expect(page.getByTestId("my-piece")).toHaveCount(1);
+  await expect(page.getByTestId("my-piece")).toContainText("1 of 1 file uploaded");
+  await context.close();
+});
