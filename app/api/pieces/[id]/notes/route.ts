@@ -1,0 +1,23 @@
+import { addEditorNote, listEditorNotes } from "@/db/queries/review";
+import { apiRoute, readJson } from "@/lib/api";
+import { requirePieceApiAccess } from "@/lib/review/access";
+import { editorNoteSchema } from "@/lib/validations/review";
+
+type Context = { params: Promise<{ id: string }> };
+
+/** The editors' notes on a piece, newest first. Contributors never see these. */
+export const GET = apiRoute(async (_request, { params }: Context) => {
+  const { id } = await params;
+  const { pieceId } = await requirePieceApiAccess(id, "pieces:review");
+  return Response.json(
+    { notes: await listEditorNotes(pieceId) },
+    { headers: { "cache-control": "no-store" } },
+  );
+});
+
+export const POST = apiRoute(async (request, { params }: Context) => {
+  const { id } = await params;
+  const { pieceId, user } = await requirePieceApiAccess(id, "pieces:review");
+  const input = await readJson(request, editorNoteSchema);
+  return Response.json({ note: await addEditorNote(pieceId, user, input.body) }, { status: 201 });
+});

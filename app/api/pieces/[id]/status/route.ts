@@ -1,0 +1,17 @@
+import { movePiece } from "@/db/queries/review";
+import { apiRoute, HttpError, readJson } from "@/lib/api";
+import { requirePieceApiAccess } from "@/lib/review/access";
+import { pieceStatusChangeSchema } from "@/lib/validations/review";
+
+/** An editor moves one piece; 409 with the reason when the move is refused. */
+export const POST = apiRoute(async (request, { params }: { params: Promise<{ id: string }> }) => {
+  const { id } = await params;
+  const { anthology, user, pieceId } = await requirePieceApiAccess(id, "pieces:review");
+  const input = await readJson(request, pieceStatusChangeSchema);
+  const outcome = await movePiece(anthology, user, pieceId, input.to, {
+    message: input.message,
+    expectedFrom: input.from,
+  });
+  if (!outcome.changed) throw new HttpError(409, outcome.reason, { refused: outcome });
+  return Response.json(outcome);
+});

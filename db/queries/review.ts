@@ -1,0 +1,436 @@
+import "server-only";
+import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from "drizzle-orm";
+import { db, schema } from "@/db";
+import { PIECE_KINDS, PIECE_STATUS_LABELS, PIECE_STATUSES, type PieceStatus } from "@/lib/domain";
+import { env } from "@/lib/env";
+import { simpleHtml } from "@/lib/mail";
+import { canMove, STATUSES_THAT_EMAIL } from "@/lib/pieces/status";
+import { statusMail } from "@/lib/pieces/status-mail";
+import { PIECE_VERDICT_RANK, PIECE_VERDICTS, type PieceVerdict } from "@/lib/pieces/verdict";
+import type { SubmissionSort, SubmissionsQuery } from "@/lib/validations/review";
+import type { Anthology } from "./anthologies";
+import { sendLoggedMail } from "./mail-log";
+
+const p = schema.pieces;
+const u = schema.users;
+
+/* ---------- The submissions table ---------- */
+
+export type SubmissionRow = {
+  id: number;
+  title: string;
+  kind: (typeof PIECE_KINDS)[number];
+  pageCount: number;
+  inks: string[];
+  verdict: PieceVerdict;
+  status: PieceStatus;
+  creditLine: string;
+  updatedAt: string;
+  contributor: { id: string; name: string | null; email: string | null };
+};
+
+export type SubmissionsPage = {
+  rows: SubmissionRow[];
+  total: number;
+  page: number;
+  pageSize: number;
+};
+
+/** `FIELD(col, 'a', 'b', …)`: the 1-based position of the value in a fixed order. */
+const fieldOrder = (column: SQL | typeof p.status, values: readonly string[]) =>
+  sql`FIELD(${column}, ${sql.join(
+    values.map((v) => sql`${v}`),
+    sql`, `,
+  )})`;
+
+/** Sort keys per column; each list is compared in turn. */
+const SORT_KEYS: Record<SubmissionSort, () => SQL[]> = {
+  contributor: () => [sql`COALESCE(${u.name}, ${u.email})`],
+  title: () => [sql`${p.title}`],
+  kind: () => [fieldOrder(sql`${p.kind}`, PIECE_KINDS)],
+  pages: () => [sql`${p.pageCount}`],
+  inks: () => [sql`JSON_LENGTH(${p.inks})`, sql`CAST(${p.inks} AS CHAR)`],
+  // Worst verdict ranks highest, so "desc" lists the pieces that need attention first.
+  verdict: () => [
+    sql`CASE ${p.verdict} ${sql.join(
+      PIECE_VERDICTS.map((v) => sql`WHEN ${v} THEN ${PIECE_VERDICT_RANK[v]}`),
+      sql` `,
+    )} ELSE 5 END`,
+  ],
+  status: () => [fieldOrder(sql`${p.status}`, PIECE_STATUSES)],
+  updated: () => [sql`${p.updatedAt}`],
+};
+
+/** `%term%` for LIKE, with the wildcard characters in the term taken literally. */
+const containing = (term: string) => `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/** One page of an anthology's submissions, filtered, searched and sorted in SQL. */
+export async function listSubmissions(
+  anthologyId: number,
+  query: SubmissionsQuery,
+): Promise<SubmissionsPage> {
+  const conditions: SQL[] = [eq(p.anthologyId, anthologyId)];
+  if (query.status.length) conditions.push(inArray(p.status, query.status));
+  if (query.verdict.length) conditions.push(inArray(p.verdict, query.verdict));
+  if (query.q) {
+    const term = containing(query.q);
+    conditions.push(or(like(p.title, term), like(u.name, term), like(p.creditLine, term))!);
+  }
+  const where = and(...conditions);
+  const direction = query.dir === "asc" ? asc : desc;
+  const order = [...SORT_KEYS[query.sort]().map((key) => direction(key)), asc(p.id)];
+
+  const [rows, [totals]] = await Promise.all([
+    db
+      .select({
+        id: p.id,
+        title: p.title,
+        kind: p.kind,
+        pageCount: p.pageCount,
+        inks: p.inks,
+        verdict: p.verdict,
+        status: p.status,
+        creditLine: p.creditLine,
+        updatedAt: p.updatedAt,
+        contributorId: u.id,
+        contributorName: u.name,
+        contributorEmail: u.email,
+      })
+      .from(p)
+      .innerJoin(u, eq(u.id, p.contributorId))
+      .where(where)
+      .orderBy(...order)
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize),
+    db.select({ total: count() }).from(p).innerJoin(u, eq(u.id, p.contributorId)).where(where),
+  ]);
+
+  return {
+    rows: rows.map((r) => ({
+      id: r.id,
+      title: r.title,
+      kind: r.kind,
+      pageCount: r.pageCount,
+      inks: r.inks,
+      verdict: r.verdict as PieceVerdict,
+      status: r.status,
+      creditLine: r.creditLine,
+      updatedAt: r.updatedAt.toISOString(),
+      contributor: { id: r.contributorId, name: r.contributorName, email: r.contributorEmail },
+    })),
+    total: Number(totals?.total ?? 0),
+    page: query.page,
+    pageSize: query.pageSize,
+  };
+}
+
+/** Which anthology a piece belongs to, for authorising requests that name only the piece. */
+export async function findPieceAnthologySlug(pieceId: number): Promise<string | undefined> {
+  const [row] = await db
+    .select({ slug: schema.anthologies.slug })
+    .from(p)
+    .innerJoin(schema.anthologies, eq(schema.anthologies.id, p.anthologyId))
+    .where(eq(p.id, pieceId))
+    .limit(1);
+  return row?.slug;
+}
+
+/* ---------- Status changes ---------- */
+
+export type StatusChangeOutcome =
+  | { pieceId: number; changed: true; from: PieceStatus; to: PieceStatus; mailed: boolean | null }
+  | { pieceId: number; changed: false; reason: string };
+
+const label = (s: PieceStatus) => `"${PIECE_STATUS_LABELS[s]}"`;
+
+/** Why an editor cannot move a piece from `from` to `to`, or null when they can. */
+function refusal(from: PieceStatus, to: PieceStatus): string | null {
+  if (from === to) return `It is already ${label(to)}.`;
+  if (from === "withdrawn")
+    return "The contributor withdrew this piece; it can no longer be moved.";
+  if (to === "withdrawn") return "Only the contributor can withdraw a piece.";
+  if (!canMove(from, to, "editor"))
+    return `A piece that is ${label(from)} cannot be moved to ${label(to)}.`;
+  return null;
+}
+
+/**
+ * Moves one piece of `anthology` to `to` in its own transaction (row locked, rule checked, history
+ * written), then e-mails the contributor when the move is one they hear about.
+ */
+export async function movePiece(
+  anthology: Anthology,
+  actor: { id: string; name: string | null },
+  pieceId: number,
+  to: PieceStatus,
+  options: { message?: string; expectedFrom?: PieceStatus } = {},
+): Promise<StatusChangeOutcome> {
+  const result = await db.transaction(async (tx) => {
+    const [row] = await tx
+      .select({ status: p.status, title: p.title, contributorId: p.contributorId })
+      .from(p)
+      .where(and(eq(p.id, pieceId), eq(p.anthologyId, anthology.id)))
+      .for("update");
+    if (!row)
+      return { changed: false as const, reason: "There is no such piece in this anthology." };
+    if (options.expectedFrom && row.status !== options.expectedFrom) {
+      return {
+        changed: false as const,
+        reason: `Someone moved it to ${label(row.status)} in the meantime; look again before changing it.`,
+      };
+    }
+    const refused = refusal(row.status, to);
+    if (refused) return { changed: false as const, reason: refused };
+    await tx.update(p).set({ status: to }).where(eq(p.id, pieceId));
+    const [event] = await tx
+      .insert(schema.pieceEvents)
+      .values({
+        pieceId,
+        actorId: actor.id,
+        fromStatus: row.status,
+        toStatus: to,
+        message: options.message ?? null,
+      })
+      .$returningId();
+    return {
+      changed: true as const,
+      from: row.status,
+      title: row.title,
+      contributorId: row.contributorId,
+      eventId: event?.id,
+    };
+  });
+  if (!result.changed) return { pieceId, changed: false, reason: result.reason };
+
+  let mailed: boolean | null = null;
+  if (STATUSES_THAT_EMAIL.includes(to)) {
+    mailed = await mailContributor(anthology, actor, {
+      pieceId,
+      title: result.title,
+      contributorId: result.contributorId,
+      to,
+      message: options.message,
+      eventId: result.eventId,
+    });
+  }
+  return { pieceId, changed: true, from: result.from, to, mailed };
+}
+
+async function mailContributor(
+  anthology: Anthology,
+  actor: { name: string | null },
+  change: {
+    pieceId: number;
+    title: string;
+    contributorId: string;
+    to: PieceStatus;
+    message?: string;
+    eventId?: number;
+  },
+): Promise<boolean> {
+  const [contributor] = await db
+    .select({ name: u.name, email: u.email })
+    .from(u)
+    .where(eq(u.id, change.contributorId))
+    .limit(1);
+  if (!contributor?.email) return false;
+  const mail = statusMail({
+    to: change.to,
+    pieceTitle: change.title,
+    anthologyTitle: anthology.title,
+    contributorName: contributor.name,
+    editorName: actor.name,
+    message: change.message,
+    pieceUrl: `${env().AUTH_URL.replace(/\/$/, "")}/studio/${anthology.slug}/my-pieces/${change.pieceId}`,
+  });
+  if (!mail) return false;
+  const paragraphs = mail.paragraphs.filter(Boolean);
+  const { sent } = await sendLoggedMail({
+    anthologyId: anthology.id,
+    pieceId: change.pieceId,
+    kind: `status-${change.to}`,
+    to: contributor.email,
+    subject: mail.subject,
+    text: `${paragraphs.join("\n\n")}\n\n${mail.link.label}: ${mail.link.href}\n`,
+    html: simpleHtml(paragraphs, mail.link),
+    dedupeKey: change.eventId ? `piece-event-${change.eventId}` : undefined,
+  });
+  return sent;
+}
+
+/** Moves several pieces, each in its own transaction; refusals do not stop the others. */
+export async function movePieces(
+  anthology: Anthology,
+  actor: { id: string; name: string | null },
+  pieceIds: number[],
+  to: PieceStatus,
+  message?: string,
+) {
+  const outcomes: StatusChangeOutcome[] = [];
+  for (const pieceId of pieceIds)
+    outcomes.push(await movePiece(anthology, actor, pieceId, to, { message }));
+  return {
+    changed: outcomes.filter((o) => o.changed),
+    refused: outcomes.filter((o) => !o.changed),
+  };
+}
+
+/* ---------- One piece in full ---------- */
+
+export type ReviewVersion = {
+  id: number;
+  versionNumber: number;
+  fileName: string;
+  mimeType: string;
+  sizeBytes: number;
+  verdict: string;
+  report: unknown;
+  hasThumbnail: boolean;
+  thumbnailWidthPx: number | null;
+  thumbnailHeightPx: number | null;
+  uploadedByName: string | null;
+  createdAt: Date;
+};
+
+export type ReviewPage = {
+  pageIndex: number;
+  altText: string | null;
+  current: ReviewVersion | null;
+  older: ReviewVersion[];
+};
+
+/** A piece with every page, every file version (newest first) and its status history (newest first). */
+export async function getPieceForReview(anthologyId: number, pieceId: number) {
+  const [head] = await db
+    .select({ piece: p, contributor: { id: u.id, name: u.name, email: u.email } })
+    .from(p)
+    .innerJoin(u, eq(u.id, p.contributorId))
+    .where(and(eq(p.id, pieceId), eq(p.anthologyId, anthologyId)))
+    .limit(1);
+  if (!head) return undefined;
+
+  const pp = schema.piecePages;
+  const fv = schema.fileVersions;
+  const uploader = sql<
+    string | null
+  >`(SELECT ${u.name} FROM ${u} WHERE ${u.id} = ${fv.uploadedBy})`;
+  const [pageRows, versionRows, eventRows] = await Promise.all([
+    db.select().from(pp).where(eq(pp.pieceId, pieceId)).orderBy(asc(pp.pageIndex)),
+    db
+      .select({
+        id: fv.id,
+        piecePageId: fv.piecePageId,
+        versionNumber: fv.versionNumber,
+        fileName: fv.fileName,
+        mimeType: fv.mimeType,
+        sizeBytes: fv.sizeBytes,
+        verdict: fv.verdict,
+        report: fv.report,
+        hasThumbnail: sql<number>`${fv.thumbnailWebp} IS NOT NULL`,
+        thumbnailWidthPx: fv.thumbnailWidthPx,
+        thumbnailHeightPx: fv.thumbnailHeightPx,
+        uploadedByName: uploader,
+        createdAt: fv.createdAt,
+      })
+      .from(fv)
+      .innerJoin(pp, eq(pp.id, fv.piecePageId))
+      .where(eq(pp.pieceId, pieceId))
+      .orderBy(desc(fv.versionNumber), desc(fv.id)),
+    db
+      .select({
+        id: schema.pieceEvents.id,
+        fromStatus: schema.pieceEvents.fromStatus,
+        toStatus: schema.pieceEvents.toStatus,
+        message: schema.pieceEvents.message,
+        createdAt: schema.pieceEvents.createdAt,
+        actorName: u.name,
+      })
+      .from(schema.pieceEvents)
+      .leftJoin(u, eq(u.id, schema.pieceEvents.actorId))
+      .where(eq(schema.pieceEvents.pieceId, pieceId))
+      .orderBy(desc(schema.pieceEvents.createdAt), desc(schema.pieceEvents.id)),
+  ]);
+
+  const pageCount = Math.max(head.piece.pageCount, ...pageRows.map((r) => r.pageIndex));
+  const pages: ReviewPage[] = [];
+  for (let index = 1; index <= pageCount; index++) {
+    const row = pageRows.find((r) => r.pageIndex === index);
+    const versions: ReviewVersion[] = row
+      ? versionRows
+          .filter((v) => v.piecePageId === row.id)
+          .map(({ piecePageId: _page, hasThumbnail, ...v }) => ({
+            ...v,
+            hasThumbnail: Boolean(Number(hasThumbnail)),
+          }))
+      : [];
+    const current = versions.find((v) => v.id === row?.currentVersionId) ?? null;
+    pages.push({
+      pageIndex: index,
+      altText: row?.altText ?? null,
+      current,
+      older: versions.filter((v) => v !== current),
+    });
+  }
+
+  return {
+    piece: { ...head.piece, verdict: head.piece.verdict as PieceVerdict },
+    contributor: head.contributor,
+    pages,
+    events: eventRows.map((e) => ({
+      ...e,
+      fromStatus: e.fromStatus as PieceStatus | null,
+      toStatus: e.toStatus as PieceStatus,
+    })),
+  };
+}
+export type PieceForReview = NonNullable<Awaited<ReturnType<typeof getPieceForReview>>>;
+
+/* ---------- Editors' notes (never shown to contributors) ---------- */
+
+export type EditorNote = {
+  id: number;
+  body: string;
+  createdAt: string;
+  author: { id: string; name: string | null };
+};
+
+export async function listEditorNotes(pieceId: number): Promise<EditorNote[]> {
+  const n = schema.editorNotes;
+  const rows = await db
+    .select({
+      id: n.id,
+      body: n.body,
+      createdAt: n.createdAt,
+      authorId: n.authorId,
+      authorName: u.name,
+    })
+    .from(n)
+    .leftJoin(u, eq(u.id, n.authorId))
+    .where(eq(n.pieceId, pieceId))
+    .orderBy(desc(n.createdAt), desc(n.id));
+  return rows.map((r) => ({
+    id: r.id,
+    body: r.body,
+    createdAt: r.createdAt.toISOString(),
+    author: { id: r.authorId, name: r.authorName },
+  }));
+}
+
+export async function addEditorNote(
+  pieceId: number,
+  author: { id: string; name: string | null },
+  body: string,
+): Promise<EditorNote> {
+  const createdAt = new Date();
+  const [row] = await db
+    .insert(schema.editorNotes)
+    .values({ pieceId, authorId: author.id, body, createdAt })
+    .$returningId();
+  if (!row) throw new Error("note insert returned no id");
+  return {
+    id: row.id,
+    body,
+    createdAt: createdAt.toISOString(),
+    author: { id: author.id, name: author.name },
+  };
+}
