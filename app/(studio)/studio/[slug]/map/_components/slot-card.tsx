@@ -1,0 +1,109 @@
+import { useDraggable, useDroppable } from "@dnd-kit/core";
+import type { MapSlot, RuleMessage } from "@/lib/map/types";
+import { RESERVATION_LABELS } from "@/lib/map-edits/labels";
+import { pageDropId, type DragData } from "./drag";
+import type { PieceView } from "./view-model";
+
+export type SlotMark = "drop-ok" | "drop-no" | null;
+
+/** One page of the map: what it holds or is kept for, its lock, and the rule messages about it. */
+export function SlotCard({
+  slot,
+  piece,
+  messages,
+  selected,
+  flagged,
+  mark,
+  canEdit,
+  onSelect,
+}: {
+  slot: MapSlot;
+  piece: PieceView | undefined;
+  messages: RuleMessage[];
+  selected: boolean;
+  flagged: boolean;
+  mark: SlotMark;
+  canEdit: boolean;
+  onSelect: (page: number) => void;
+}) {
+  const { setNodeRef, isOver } = useDroppable({ id: pageDropId(slot.page), disabled: !canEdit });
+  const errors = messages.filter((m) => m.severity === "error");
+  const tone = errors.length ? "border-persimmon" : messages.length ? "border-mustard" : "border-ink/20";
+  const fill = slot.reservation ? "bg-paper-deep" : piece ? "bg-white" : "bg-white/40";
+  const what = piece
+    ? `${piece.title}${piece.length > 1 ? `, its page ${slot.piecePageIndex} of ${piece.length}` : ""}`
+    : slot.reservation
+      ? `kept for ${RESERVATION_LABELS[slot.reservation].toLowerCase()}`
+      : "empty";
+  return (
+    <div
+      ref={setNodeRef}
+      data-testid={`slot-${slot.page}`}
+      data-piece={slot.pieceId ?? ""}
+      data-reservation={slot.reservation ?? ""}
+      data-locked={slot.locked ? "true" : "false"}
+      data-rules={messages.length}
+      className={`relative flex h-40 w-28 flex-col gap-1 border-2 p-1.5 text-xs transition-colors ${tone} ${fill} ${
+        selected ? "ring-2 ring-teal ring-offset-1" : ""
+      } ${flagged ? "ring-2 ring-persimmon ring-offset-1" : ""} ${isOver && mark !== "drop-no" ? "bg-teal-light" : ""} ${
+        mark === "drop-no" ? "opacity-40" : mark === "drop-ok" ? "border-dashed border-teal" : ""
+      }`}
+    >
+      <button
+        type="button"
+        onClick={() => onSelect(slot.page)}
+        aria-pressed={selected}
+        aria-label={`Page ${slot.page}: ${what}${slot.locked ? ", locked" : ""}${messages.length ? `, ${messages.length} rule ${messages.length === 1 ? "message" : "messages"}` : ""}`}
+        className="flex items-center justify-between text-left font-mono text-[11px] text-ink-soft hover:text-ink"
+        data-testid={`slot-select-${slot.page}`}
+      >
+        <span>p. {slot.page}</span>
+        {slot.locked ? <span aria-hidden="true" title="Locked">🔒</span> : null}
+      </button>
+      {slot.reservation ? <p className="font-semibold text-ink-soft">{RESERVATION_LABELS[slot.reservation]}</p> : null}
+      {piece ? <PlacedChip piece={piece} slot={slot} canEdit={canEdit && !slot.locked} onSelect={onSelect} /> : null}
+      {!piece && !slot.reservation ? <p className="text-ink-faint">Empty</p> : null}
+      {messages.length ? (
+        <ul className="mt-auto flex flex-col gap-0.5" data-testid={`slot-rules-${slot.page}`}>
+          {messages.slice(0, 2).map((m, i) => (
+            <li key={i} className={`line-clamp-2 leading-tight ${m.severity === "error" ? "text-persimmon-dark" : "text-ink-soft"}`} title={m.message}>
+              {m.severity === "error" ? "Problem: " : "Note: "}
+              {m.message}
+            </li>
+          ))}
+          {messages.length > 2 ? <li className="text-ink-faint">and {messages.length - 2} more</li> : null}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
+
+function PlacedChip({ piece, slot, canEdit, onSelect }: { piece: PieceView; slot: MapSlot; canEdit: boolean; onSelect: (page: number) => void }) {
+  const data: DragData = { pieceId: piece.id, from: "map", index: slot.piecePageIndex ?? 1 };
+  const { attributes, listeners, setNodeRef, isDragging } = useDraggable({ id: `map-piece-${piece.id}-${slot.page}`, data, disabled: !canEdit });
+  return (
+    <div
+      ref={setNodeRef}
+      {...attributes}
+      {...listeners}
+      onKeyDown={(event) => {
+        if (event.key === "Enter") {
+          event.preventDefault();
+          onSelect(slot.page);
+          return;
+        }
+        listeners?.onKeyDown?.(event);
+      }}
+      aria-roledescription="placed piece"
+      aria-label={`${piece.title} on page ${slot.page}. Press Enter for its page controls${canEdit ? ", or Space to drag it" : ""}.`}
+      data-testid={`placed-${piece.id}-${slot.page}`}
+      className={`rounded bg-teal-light/70 px-1.5 py-1 ${canEdit ? "cursor-grab touch-none" : ""} ${isDragging ? "opacity-40" : ""}`}
+    >
+      <p className="line-clamp-2 font-semibold leading-tight">{piece.title}</p>
+      <p className="text-[11px] text-ink-soft">
+        {piece.length > 1 ? `${slot.piecePageIndex}/${piece.length} · ` : ""}
+        {piece.contributorName}
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,116 @@
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useCallback, useRef, useState } from "react";
+import { checkMap } from "@/lib/map/check";
+import { countPasses } from "@/lib/map/passes";
+import { checkedChange } from "@/lib/map-edits/apply";
+import type { MapChangeAnswer, MapPayload, MapRefusalAnswer } from "@/lib/map-edits/payload";
+import type { MapChange } from "@/lib/validations/page-map";
+
+export type Feedback = { tone: "info" | "error" | "warn"; text: string; pages?: number[] } | null;
+
+export const mapKey = (slug: string) => ["page-map", slug] as const;
+
+async function readBody<T>(response: Response): Promise<T | null> {
+  try {
+    return (await response.json()) as T;
+  } catch {
+    return null;
+  }
+}
+
+/** The map from the server (seeded with the server-rendered copy). */
+export function useMapQuery(slug: string, initial: MapPayload) {
+  return useQuery({
+    queryKey: mapKey(slug),
+    initialData: initial,
+    queryFn: async () => {
+      const response = await fetch(`/api/anthologies/${slug}/map`, { cache: "no-store" });
+      const body = await readBody<MapPayload & { error?: string }>(response);
+      if (!response.ok || !body) throw new Error(body?.error ?? `The map could not be loaded (${response.status}).`);
+      return body;
+    },
+    refetchOnWindowFocus: true,
+    staleTime: 5_000,
+  });
+}
+
+/**
+ * Sends changes one after another. Each is checked at once with the same engine the server uses
+ * (a refusal shows instantly and nothing is sent) and shown optimistically; the server's answer
+ * then replaces it: the saved map, or on 409 the fresh map with the reason, or on 422 the reason.
+ */
+export function useMapChanges(slug: string) {
+  const queryClient = useQueryClient();
+  const [feedback, setFeedback] = useState<Feedback>(null);
+  const [saving, setSaving] = useState(0);
+  const queue = useRef<Promise<unknown>>(Promise.resolve());
+  const confirmed = useRef<MapPayload | null>(null);
+  const pending = useRef(0);
+
+  const current = () => queryClient.getQueryData<MapPayload>(mapKey(slug));
+
+  const send = useCallback(
+    (change: MapChange, opts: { quiet?: boolean } = {}): Promise<boolean> => {
+      const map = current();
+      if (!map) return Promise.resolve(false);
+      const local = checkedChange(map.state, change);
+      if (!local.ok) {
+        setFeedback({ tone: "error", text: local.reason, pages: local.pages });
+        return Promise.resolve(false);
+      }
+      // With nothing in flight the cache is what the server last said.
+      if (pending.current === 0) confirmed.current = map;
+      pending.current++;
+      queryClient.setQueryData<MapPayload>(mapKey(slug), {
+        ...map,
+        state: local.state,
+        check: checkMap(local.state),
+        passes: countPasses(local.state, map.passes.copies),
+      });
+      setSaving((n) => n + 1);
+      const run = async (): Promise<boolean> => {
+        try {
+          const response = await fetch(`/api/anthologies/${slug}/map`, {
+            method: "POST",
+            headers: { "content-type": "application/json" },
+            body: JSON.stringify({ version: (confirmed.current ?? map).version, change }),
+          });
+          if (response.ok) {
+            const body = await readBody<MapChangeAnswer>(response);
+            if (!body) throw new Error("The server's answer could not be read.");
+            confirmed.current = body;
+            queryClient.setQueryData<MapPayload>(mapKey(slug), body);
+            if (!opts.quiet) setFeedback({ tone: "info", text: `Saved. ${body.summary}` });
+            return true;
+          }
+          const body = await readBody<MapRefusalAnswer>(response);
+          const fallback = body?.map ?? confirmed.current ?? map;
+          confirmed.current = fallback;
+          queryClient.setQueryData<MapPayload>(mapKey(slug), fallback);
+          setFeedback({
+            tone: response.status === 409 ? "warn" : "error",
+            text: body?.error ?? `The change was not saved (${response.status}).`,
+            pages: body?.pages,
+          });
+          return false;
+        } catch (error) {
+          queryClient.setQueryData<MapPayload>(mapKey(slug), confirmed.current ?? map);
+          setFeedback({
+            tone: "error",
+            text: `The change was not saved: ${error instanceof Error ? error.message : "the server did not answer"}. The map shows what is saved; try again.`,
+          });
+          return false;
+        } finally {
+          pending.current--;
+          setSaving((n) => n - 1);
+        }
+      };
+      const next = queue.current.then(run, run);
+      queue.current = next;
+      return next;
+    },
+    [slug],
+  );
+
+  return { send, feedback, setFeedback, saving: saving > 0 };
+}

@@ -1,0 +1,144 @@
+/**
+ * One page-map change, as the screen sends it, applied through the map engine (lib/map). Pure:
+ * the map screen runs it for instant feedback and the route handler runs it again before saving.
+ */
+import { checkMap } from "@/lib/map/check";
+import { lockSlot, movePiece, placePiece, removePiece, resizeMap, setReservation } from "@/lib/map/edit";
+import { pagesInWords, pieceName, piecePages } from "@/lib/map/state";
+import type { EditRefusal, EditResult, MapCheck, MapState, RuleCode, RuleMessage } from "@/lib/map/types";
+import type { MapChange } from "@/lib/validations/page-map";
+import { RESERVATION_PHRASES } from "./labels";
+
+/**
+ * Errors that may stand while the map is being filled in: pieces still waiting in the tray.
+ * Every other error (a page used twice, a spread off its facing pair, a run out of order, a
+ * reserved page holding a piece, a page count the binding cannot take) blocks a save when a
+ * change creates it.
+ */
+export const ALLOWED_WHILE_IN_PROGRESS: ReadonlySet<RuleCode> = new Set<RuleCode>(["piece-not-placed"]);
+
+/** Applies one change; a proposal is applied as a whole: its pieces come off, then go on where proposed. */
+export function applyChange(state: MapState, change: MapChange): EditResult {
+  switch (change.op) {
+    case "place":
+      return placePiece(state, change.pieceId, change.startPage);
+    case "move":
+      return movePiece(state, change.pieceId, change.startPage);
+    case "remove":
+      return removePiece(state, change.pieceId);
+    case "reserve":
+      return setReservation(state, change.page, change.reservation);
+    case "lock":
+      return lockSlot(state, change.page, change.locked);
+    case "resize":
+      return resizeMap(state, { delta: change.delta, atPage: change.atPage, force: change.force === true });
+    case "apply-proposal":
+      return applyPlacements(state, change.placements);
+  }
+}
+
+function applyPlacements(state: MapState, placements: { pieceId: number; pages: number[] }[]): EditResult {
+  let current = state;
+  const changed = new Set<number>();
+  const where = piecePages(state);
+  const moved = placements.filter((p) => {
+    const now = where.get(p.pieceId)?.map((w) => w.page) ?? [];
+    return now.join(",") !== p.pages.join(",");
+  });
+  for (const p of moved) {
+    if (!where.has(p.pieceId)) continue;
+    const off = removePiece(current, p.pieceId);
+    if (!off.ok) return off;
+    current = off.state;
+    off.changedPages.forEach((page) => changed.add(page));
+  }
+  for (const p of moved) {
+    const start = p.pages[0];
+    if (start === undefined) continue;
+    const on = placePiece(current, p.pieceId, start);
+    if (!on.ok) return on;
+    const expected = p.pages.join(",");
+    const got = on.changedPages.join(",");
+    if (expected !== got) {
+      return {
+        ok: false,
+        code: "page-out-of-range",
+        reason: `The proposal put ${pieceName(state.pieces.find((x) => x.id === p.pieceId), p.pieceId)} on ${pagesInWords(p.pages)}, but it takes ${pagesInWords(on.changedPages)}; ask for a fresh proposal.`,
+        pages: p.pages,
+        pieceIds: [p.pieceId],
+      } satisfies EditRefusal;
+    }
+    current = on.state;
+    on.changedPages.forEach((page) => changed.add(page));
+  }
+  return { ok: true, state: current, changedPages: [...changed].sort((a, b) => a - b), droppedPieceIds: [] };
+}
+
+/** ", sending “X” back to the tray" for pieces a forced removal took off the map. */
+function droppedNote(before: MapState, after: MapState, name: (id: number) => string): string {
+  const was = piecePages(before);
+  const now = piecePages(after);
+  const dropped = [...was.keys()].filter((id) => !now.has(id));
+  return dropped.length ? `, sending ${dropped.map(name).join(", ")} back to the tray` : "";
+}
+
+function errorKey(m: RuleMessage): string {
+  return m.pieceIds.length ? `${m.code}:${m.pieceIds.join(",")}` : `${m.code}:${m.pages.join(",")}`;
+}
+
+/**
+ * Errors the change created that block saving: present after, absent before, and not of a kind
+ * allowed while work is in progress. Keyed by piece (not page) so a resize that renumbers an old
+ * problem does not count it as new.
+ */
+export function newBlockingErrors(before: MapCheck, after: MapCheck): RuleMessage[] {
+  const old = new Set(before.errors.map(errorKey));
+  return after.errors.filter((m) => !ALLOWED_WHILE_IN_PROGRESS.has(m.code) && !old.has(errorKey(m)));
+}
+
+export type CheckedChange =
+  | { ok: true; state: MapState; check: MapCheck; changedPages: number[]; summary: string }
+  | { ok: false; reason: string; pages: number[]; pieceIds: number[] };
+
+/** Applies a change and the save rule: refused when the engine refuses or the result has new blocking errors. */
+export function checkedChange(state: MapState, change: MapChange): CheckedChange {
+  const result = applyChange(state, change);
+  if (!result.ok) return { ok: false, reason: result.reason, pages: result.pages, pieceIds: result.pieceIds };
+  const after = checkMap(result.state);
+  const blocking = newBlockingErrors(checkMap(state), after);
+  if (blocking.length > 0) {
+    return {
+      ok: false,
+      reason: `Not saved: ${blocking.map((m) => m.message).join(" ")}`,
+      pages: [...new Set(blocking.flatMap((m) => m.pages))],
+      pieceIds: [...new Set(blocking.flatMap((m) => m.pieceIds))],
+    };
+  }
+  return { ok: true, state: result.state, check: after, changedPages: result.changedPages, summary: describeChange(state, result.state, change) };
+}
+
+/** One line for the history panel: who did what, in the map's own words. */
+export function describeChange(before: MapState, after: MapState, change: MapChange): string {
+  const name = (id: number) => pieceName(before.pieces.find((p) => p.id === id), id);
+  const pagesOf = (s: MapState, id: number) => (piecePages(s).get(id) ?? []).map((w) => w.page);
+  switch (change.op) {
+    case "place":
+      return `Placed ${name(change.pieceId)} on ${pagesInWords(pagesOf(after, change.pieceId))}.`;
+    case "move":
+      return `Moved ${name(change.pieceId)} from ${pagesInWords(pagesOf(before, change.pieceId))} to ${pagesInWords(pagesOf(after, change.pieceId))}.`;
+    case "remove":
+      return `Took ${name(change.pieceId)} off ${pagesInWords(pagesOf(before, change.pieceId))} and back to the tray.`;
+    case "reserve":
+      return change.reservation === null
+        ? `Freed page ${change.page} for pieces.`
+        : `Kept page ${change.page} for ${RESERVATION_PHRASES[change.reservation]}.`;
+    case "lock":
+      return change.locked ? `Locked page ${change.page}.` : `Unlocked page ${change.page}.`;
+    case "resize":
+      return change.delta > 0
+        ? `Added 4 pages at page ${change.atPage} (now ${after.pageCount} pages).`
+        : `Removed pages ${change.atPage}–${change.atPage + 3} (now ${after.pageCount} pages)${droppedNote(before, after, name)}.`;
+    case "apply-proposal":
+      return `Accepted a proposal placing ${change.placements.length === 1 ? "1 piece" : `${change.placements.length} pieces`}.`;
+  }
+}

@@ -1,0 +1,69 @@
+/** What the page-map route handlers answer; shared by the handlers and the map screen. */
+import type { Binding, PieceStatus, PrintMethod } from "@/lib/domain";
+import type { MapCheck, MapState, PassCount, Proposal } from "@/lib/map/types";
+
+/** A piece as the map screen lists it: the engine's fields plus who made it. */
+export interface MapPieceCard {
+  id: number;
+  contributorName: string;
+  status: PieceStatus;
+}
+
+export interface MapEventView {
+  id: number;
+  mapVersion: number;
+  action: string;
+  summary: string;
+  actorName: string;
+  at: string;
+}
+
+export interface MapPayload {
+  anthology: {
+    id: number;
+    slug: string;
+    title: string;
+    binding: Binding;
+    printMethod: PrintMethod;
+    paperCaliperMm: number;
+    coverStock: "self" | "separate";
+  };
+  version: number;
+  state: MapState;
+  cards: MapPieceCard[];
+  check: MapCheck;
+  passes: PassCount;
+  /** Push-out of every sheet at the fore-edge, outermost first (lib/print/creep, linear model). */
+  creepMm: number[];
+  events: MapEventView[];
+  canEdit: boolean;
+}
+
+/** A saved change: the fresh map and the one-line summary written to the history. */
+export interface MapChangeAnswer extends MapPayload {
+  summary: string;
+}
+
+/** A refused change: why, the pages and pieces concerned; with 409 also the fresh map. */
+export interface MapRefusalAnswer {
+  error: string;
+  pages?: number[];
+  pieceIds?: number[];
+  map?: MapPayload;
+}
+
+export interface ProposalAnswer {
+  /** The version the proposal was computed against; accepting it sends this version back. */
+  version: number;
+  copies: number;
+  proposal: Proposal;
+  check: MapCheck;
+  passes: PassCount;
+}
+
+export interface NoticesAnswer {
+  sent: number;
+  alreadySent: number;
+  failed: number;
+  contributors: number;
+}
