@@ -393,17 +393,27 @@ async function runTsScript(file, env) {
   if (!fs.existsSync(path.join(ROOT, "db", file))) throw new Fatal(`${label} does not exist`);
   step(`running ${label}`);
   // react-server: the seed reuses server modules, whose `import "server-only"` guard then resolves to a no-op.
-  const r = await runToEnd(label, process.execPath, ["--conditions=react-server", "--import", "tsx", label], {
-    env,
-    capture: true,
-  });
+  const r = await runToEnd(
+    label,
+    process.execPath,
+    ["--conditions=react-server", "--import", "tsx", label],
+    {
+      env,
+      capture: true,
+    },
+  );
   if (r.code !== 0) {
     throw new Fatal(
       `${label} failed (exit ${r.code ?? r.signal ?? r.error?.message}). Its output:\n${r.output.trimEnd() || "(none)"}`,
     );
   }
-  const last = r.output.trim().split("\n").filter(Boolean).pop();
-  if (last) note(last.slice(0, 200));
+  // The scripts print one summary line per step; warnings from libraries are left out.
+  for (const line of r.output
+    .trim()
+    .split("\n")
+    .filter((l) => /^(demo|page map|migrations)/.test(l))) {
+    note(line.slice(0, 200));
+  }
 }
 
 /** Reads a child's output line by line, sending each line to `sink`. */

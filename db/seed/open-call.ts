@@ -46,7 +46,7 @@ export async function seedOpenCall(db: Db, now = new Date()) {
       timeZone: TIME_ZONE,
       allowedKinds: ["single", "spread", "run"],
       maxRunPages: 4,
-      piecesPerPerson: 2,
+      piecesPerPerson: 5,
       allowedInks: ["black", "teal"],
       feeKind: "per-piece",
       feeCents: 2500,

@@ -16,18 +16,81 @@ import type { MapPiece, MapState } from "@/lib/map/types";
 import { padToMultipleOf4 } from "@/lib/print/imposition";
 import { RESERVATION_PHRASES } from "@/lib/map-edits/labels";
 
-type ExtraPiece = { title: string; email: string; kind: PieceKind; pageCount: number; inks: string[]; credit: string };
+type ExtraPiece = {
+  title: string;
+  email: string;
+  kind: PieceKind;
+  pageCount: number;
+  inks: string[];
+  credit: string;
+};
 
 /** Invented pieces for the demo contributors, used only when the almanac has too few accepted pieces. */
 const EXTRA_PIECES: ExtraPiece[] = [
-  { title: "Bladderwrack Census", email: "tomasz@lanternfield.test", kind: "spread", pageCount: 2, inks: ["black", "teal"], credit: "Tomasz Vireo" },
-  { title: "The Limpet Clock", email: "bea@lanternfield.test", kind: "single", pageCount: 1, inks: ["black"], credit: "Bea Okonkwo-Hale" },
-  { title: "Mudflat at Six", email: "imke@lanternfield.test", kind: "single", pageCount: 1, inks: ["teal"], credit: "Imke Sallow" },
-  { title: "Hermit Crab Moving Day", email: "bea@lanternfield.test", kind: "run", pageCount: 3, inks: ["black"], credit: "Bea Okonkwo-Hale" },
-  { title: "Low Water Mark", email: "tomasz@lanternfield.test", kind: "single", pageCount: 1, inks: ["teal"], credit: "Tomasz Vireo" },
-  { title: "Sea Glass Inventory", email: "imke@lanternfield.test", kind: "single", pageCount: 1, inks: ["black", "teal"], credit: "Imke Sallow" },
-  { title: "What the Heron Kept", email: "tomasz@lanternfield.test", kind: "single", pageCount: 1, inks: ["black"], credit: "Tomasz Vireo" },
-  { title: "Tide Table for Insomniacs", email: "imke@lanternfield.test", kind: "spread", pageCount: 2, inks: ["teal"], credit: "Imke Sallow" },
+  {
+    title: "Bladderwrack Census",
+    email: "tomasz@lanternfield.test",
+    kind: "spread",
+    pageCount: 2,
+    inks: ["black", "teal"],
+    credit: "Tomasz Vireo",
+  },
+  {
+    title: "The Limpet Clock",
+    email: "bea@lanternfield.test",
+    kind: "single",
+    pageCount: 1,
+    inks: ["black"],
+    credit: "Bea Okonkwo-Hale",
+  },
+  {
+    title: "Mudflat at Six",
+    email: "imke@lanternfield.test",
+    kind: "single",
+    pageCount: 1,
+    inks: ["teal"],
+    credit: "Imke Sallow",
+  },
+  {
+    title: "Hermit Crab Moving Day",
+    email: "bea@lanternfield.test",
+    kind: "run",
+    pageCount: 3,
+    inks: ["black"],
+    credit: "Bea Okonkwo-Hale",
+  },
+  {
+    title: "Low Water Mark",
+    email: "tomasz@lanternfield.test",
+    kind: "single",
+    pageCount: 1,
+    inks: ["teal"],
+    credit: "Tomasz Vireo",
+  },
+  {
+    title: "Sea Glass Inventory",
+    email: "imke@lanternfield.test",
+    kind: "single",
+    pageCount: 1,
+    inks: ["black", "teal"],
+    credit: "Imke Sallow",
+  },
+  {
+    title: "What the Heron Kept",
+    email: "tomasz@lanternfield.test",
+    kind: "single",
+    pageCount: 1,
+    inks: ["black"],
+    credit: "Tomasz Vireo",
+  },
+  {
+    title: "Tide Table for Insomniacs",
+    email: "bea@lanternfield.test",
+    kind: "spread",
+    pageCount: 2,
+    inks: ["teal"],
+    credit: "Bea Okonkwo-Hale",
+  },
 ];
 
 /** Pieces the demo map wants: enough to place some and leave a few waiting. */
@@ -42,12 +105,26 @@ const RESERVED: [number | "last" | "second-last", SlotReservation][] = [
   ["last", "cover"],
 ];
 
-export async function seedPageMap(db: Db): Promise<{ slug: string; placed: number; waiting: number } | null> {
-  const [almanac] = await db.select().from(schema.anthologies).where(eq(schema.anthologies.slug, "low-tide-almanac")).limit(1);
+export async function seedPageMap(
+  db: Db,
+): Promise<{ slug: string; placed: number; waiting: number } | null> {
+  const [almanac] = await db
+    .select()
+    .from(schema.anthologies)
+    .where(eq(schema.anthologies.slug, "low-tide-almanac"))
+    .limit(1);
   if (!almanac) throw new Error("seed the demo press before its page map");
-  const [history] = await db.select({ id: schema.mapEvents.id }).from(schema.mapEvents).where(eq(schema.mapEvents.anthologyId, almanac.id)).limit(1);
+  const [history] = await db
+    .select({ id: schema.mapEvents.id })
+    .from(schema.mapEvents)
+    .where(eq(schema.mapEvents.anthologyId, almanac.id))
+    .limit(1);
   if (history) return null;
-  const [odile] = await db.select().from(schema.users).where(eq(schema.users.email, "odile@marrowbend.test")).limit(1);
+  const [odile] = await db
+    .select()
+    .from(schema.users)
+    .where(eq(schema.users.email, "odile@marrowbend.test"))
+    .limit(1);
   if (!odile) throw new Error("demo lead editor missing");
 
   let accepted = await acceptedPieces(db, almanac.id);
@@ -78,18 +155,30 @@ export async function seedPageMap(db: Db): Promise<{ slug: string; placed: numbe
 
   for (const [where, reservation] of RESERVED) {
     const page = where === "last" ? pageCount : where === "second-last" ? pageCount - 1 : where;
-    apply(setReservation(state, page, reservation), "reserve", `Kept page ${page} for ${RESERVATION_PHRASES[reservation]}.`);
+    apply(
+      setReservation(state, page, reservation),
+      "reserve",
+      `Kept page ${page} for ${RESERVATION_PHRASES[reservation]}.`,
+    );
   }
-  apply(setReservation(state, pageCount - 2, "credits"), "reserve", `Kept page ${pageCount - 2} for the credits.`);
-  for (const page of [1, pageCount]) apply(lockSlot(state, page, true), "lock", `Locked page ${page}.`);
+  apply(
+    setReservation(state, pageCount - 2, "credits"),
+    "reserve",
+    `Kept page ${pageCount - 2} for the credits.`,
+  );
+  for (const page of [1, pageCount])
+    apply(lockSlot(state, page, true), "lock", `Locked page ${page}.`);
 
   // The centre spread first (the one reader spread printed whole on one side), then the rest
   // from page 4 on, leaving a few pieces for the tray and the proposal.
-  const order = [...accepted].sort((x, y) => Number(y.kind === "spread") - Number(x.kind === "spread") || x.id - y.id);
+  const order = [...accepted].sort(
+    (x, y) => Number(y.kind === "spread") - Number(x.kind === "spread") || x.id - y.id,
+  );
   const toPlace = order.slice(0, Math.max(0, order.length - LEFT_IN_TRAY));
   const centre = pageCount / 2;
   for (const piece of toPlace) {
-    const starts = piece.kind === "spread" && !steps.some((s) => s.action === "place") ? [centre] : [];
+    const starts =
+      piece.kind === "spread" && !steps.some((s) => s.action === "place") ? [centre] : [];
     for (let p = 4; p <= pageCount; p++) starts.push(p);
     for (const start of starts) {
       const result = placePiece(state, piece.id, start);
@@ -100,7 +189,10 @@ export async function seedPageMap(db: Db): Promise<{ slug: string; placed: numbe
     }
   }
   const problems = checkMap(state).errors.filter((m) => m.code !== "piece-not-placed");
-  if (problems.length) throw new Error(`demo page map breaks its own rules: ${problems.map((m) => m.message).join(" ")}`);
+  if (problems.length)
+    throw new Error(
+      `demo page map breaks its own rules: ${problems.map((m) => m.message).join(" ")}`,
+    );
 
   await db.transaction(async (tx) => {
     await tx.delete(schema.pageSlots).where(eq(schema.pageSlots.anthologyId, almanac.id));
@@ -132,20 +224,37 @@ export async function seedPageMap(db: Db): Promise<{ slug: string; placed: numbe
       .where(eq(schema.anthologies.id, almanac.id));
   });
   const placed = piecePages(state).size;
-  return { slug: almanac.slug, placed, waiting: accepted.filter((p) => !p.leftOut).length - placed };
+  return {
+    slug: almanac.slug,
+    placed,
+    waiting: accepted.filter((p) => !p.leftOut).length - placed,
+  };
 }
 
 async function acceptedPieces(db: Db, anthologyId: number): Promise<MapPiece[]> {
   const rows = await db
-    .select({ id: schema.pieces.id, title: schema.pieces.title, kind: schema.pieces.kind, pageCount: schema.pieces.pageCount, inks: schema.pieces.inks, leftOut: schema.pieces.leftOut })
+    .select({
+      id: schema.pieces.id,
+      title: schema.pieces.title,
+      kind: schema.pieces.kind,
+      pageCount: schema.pieces.pageCount,
+      inks: schema.pieces.inks,
+      leftOut: schema.pieces.leftOut,
+    })
     .from(schema.pieces)
     .where(and(eq(schema.pieces.anthologyId, anthologyId), eq(schema.pieces.status, "accepted")))
     .orderBy(schema.pieces.id);
-  return rows.map((r) => ({ ...r, inks: Array.isArray(r.inks) ? r.inks : [] })).filter((p) => !p.leftOut);
+  return rows
+    .map((r) => ({ ...r, inks: Array.isArray(r.inks) ? r.inks : [] }))
+    .filter((p) => !p.leftOut);
 }
 
 async function createAcceptedPiece(db: Db, anthologyId: number, extra: ExtraPiece): Promise<void> {
-  const [person] = await db.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, extra.email)).limit(1);
+  const [person] = await db
+    .select({ id: schema.users.id })
+    .from(schema.users)
+    .where(eq(schema.users.email, extra.email))
+    .limit(1);
   if (!person) throw new Error(`demo contributor ${extra.email} missing`);
   const [inserted] = await db
     .insert(schema.pieces)
@@ -162,6 +271,14 @@ async function createAcceptedPiece(db: Db, anthologyId: number, extra: ExtraPiec
     .$returningId();
   if (!inserted) throw new Error("piece insert returned no id");
   const pages = pieceLength({ kind: extra.kind, pageCount: extra.pageCount });
-  await db.insert(schema.piecePages).values(Array.from({ length: pages }, (_, i) => ({ pieceId: inserted.id, pageIndex: i + 1 })));
-  await db.insert(schema.pieceEvents).values({ pieceId: inserted.id, actorId: null, fromStatus: null, toStatus: "accepted", message: "Accepted for the demo page map." });
+  await db
+    .insert(schema.piecePages)
+    .values(Array.from({ length: pages }, (_, i) => ({ pieceId: inserted.id, pageIndex: i + 1 })));
+  await db.insert(schema.pieceEvents).values({
+    pieceId: inserted.id,
+    actorId: null,
+    fromStatus: null,
+    toStatus: "accepted",
+    message: "Accepted for the demo page map.",
+  });
 }
