@@ -64,7 +64,10 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
           subject: "Your Quireline sign-in link",
           text: `Open this link to sign in to Quireline:\n\n${url}\n\nIt works once and expires in an hour. If you did not ask for it, ignore this message.`,
           html: simpleHtml(
-            ["Open the link below to sign in to Quireline. It works once and expires in an hour.", "If you did not ask for it, ignore this message."],
+            [
+              "Open the link below to sign in to Quireline. It works once and expires in an hour.",
+              "If you did not ask for it, ignore this message.",
+            ],
             { href: url, label: "Sign in to Quireline" },
           ),
         });

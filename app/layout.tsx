@@ -6,7 +6,8 @@ import "./globals.css";
 
 export const metadata: Metadata = {
   title: { default: "Quireline", template: "%s · Quireline" },
-  description: "From open call to contributor payouts: Quireline runs collaborative zines and small-press anthologies.",
+  description:
+    "From open call to contributor payouts: Quireline runs collaborative zines and small-press anthologies.",
 };
 
 export default function RootLayout({ children }: { children: ReactNode }) {
@@ -16,7 +17,8 @@ export default function RootLayout({ children }: { children: ReactNode }) {
         <SiteHeader />
         <main className="mx-auto max-w-6xl px-5 py-8">{children}</main>
         <footer className="mx-auto max-w-6xl px-5 pb-10 pt-6 text-xs text-ink-faint">
-          Quireline keeps records for small presses. Payout figures are records, not tax or legal advice.
+          Quireline keeps records for small presses. Payout figures are records, not tax or legal
+          advice.
         </footer>
       </body>
     </html>

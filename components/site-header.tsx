@@ -27,7 +27,10 @@ export async function SiteHeader() {
                   await signOut({ redirectTo: "/" });
                 }}
               >
-                <button type="submit" className="rounded border border-ink/30 px-3 py-1 hover:bg-paper-deep">
+                <button
+                  type="submit"
+                  className="rounded border border-ink/30 px-3 py-1 hover:bg-paper-deep"
+                >
                   Sign out
                 </button>
               </form>
@@ -35,7 +38,10 @@ export async function SiteHeader() {
           ) : (
             <>
               <Link href="/sign-in">Sign in</Link>
-              <Link href="/sign-up" className="rounded bg-ink px-3 py-1 font-semibold text-paper no-underline">
+              <Link
+                href="/sign-up"
+                className="rounded bg-ink px-3 py-1 font-semibold text-paper no-underline"
+              >
                 Create an account
               </Link>
             </>

@@ -6,9 +6,15 @@ import { parseEnv } from "../lib/env";
 
 async function main() {
   const { DATABASE_URL } = parseEnv(process.env);
-  const connection = await mysql.createConnection({ uri: DATABASE_URL, timezone: "Z", multipleStatements: true });
+  const connection = await mysql.createConnection({
+    uri: DATABASE_URL,
+    timezone: "Z",
+    multipleStatements: true,
+  });
   try {
-    await migrate(drizzle(connection), { migrationsFolder: new URL("../drizzle", import.meta.url).pathname });
+    await migrate(drizzle(connection), {
+      migrationsFolder: new URL("../drizzle", import.meta.url).pathname,
+    });
     console.log("migrations applied");
   } finally {
     await connection.end();

@@ -44,7 +44,10 @@ import {
 const id = () => bigint("id", { mode: "number", unsigned: true }).autoincrement().primaryKey();
 const ref = (name: string) => bigint(name, { mode: "number", unsigned: true });
 const userRef = (name: string) => varchar(name, { length: 255 });
-const createdAt = () => datetime("created_at", { mode: "date", fsp: 3 }).notNull().$defaultFn(() => new Date());
+const createdAt = () =>
+  datetime("created_at", { mode: "date", fsp: 3 })
+    .notNull()
+    .$defaultFn(() => new Date());
 const updatedAt = () =>
   datetime("updated_at", { mode: "date", fsp: 3 })
     .notNull()
@@ -116,7 +119,10 @@ export const anthologies = mysqlTable("anthology", {
   title: varchar("title", { length: 200 }).notNull(),
   pressName: varchar("press_name", { length: 200 }),
   summary: text("summary"),
-  stage: varchar("stage", { length: 24, enum: ANTHOLOGY_STAGES }).$type<AnthologyStage>().notNull().default("planning"),
+  stage: varchar("stage", { length: 24, enum: ANTHOLOGY_STAGES })
+    .$type<AnthologyStage>()
+    .notNull()
+    .default("planning"),
   trimPreset: varchar("trim_preset", { length: 32 }).notNull(),
   trimWidthMm: double("trim_width_mm").notNull(),
   trimHeightMm: double("trim_height_mm").notNull(),
@@ -125,11 +131,15 @@ export const anthologies = mysqlTable("anthology", {
   binding: varchar("binding", { length: 24, enum: BINDINGS }).$type<Binding>().notNull(),
   pageCountTarget: int("page_count_target").notNull(),
   maxPages: int("max_pages").notNull(),
-  coverStock: varchar("cover_stock", { length: 16, enum: COVER_STOCKS }).$type<CoverStock>().notNull(),
+  coverStock: varchar("cover_stock", { length: 16, enum: COVER_STOCKS })
+    .$type<CoverStock>()
+    .notNull(),
   coverPaperGsm: int("cover_paper_gsm"),
   paperGsm: int("paper_gsm").notNull(),
   paperCaliperMm: double("paper_caliper_mm").notNull(),
-  printMethod: varchar("print_method", { length: 24, enum: PRINT_METHODS }).$type<PrintMethod>().notNull(),
+  printMethod: varchar("print_method", { length: 24, enum: PRINT_METHODS })
+    .$type<PrintMethod>()
+    .notNull(),
   /** Ink names in press order, e.g. ["black", "fluorescent pink"]; one drum pass each. */
   inks: json("inks").$type<string[]>().notNull(),
   /** Inks the press can lay in one pass over a sheet side (duplicators: usually 1). */
@@ -156,7 +166,10 @@ export const memberships = mysqlTable(
     role: varchar("role", { length: 16, enum: ROLES }).$type<Role>().notNull(),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("membership_person").on(t.anthologyId, t.userId), index("membership_user").on(t.userId)],
+  (t) => [
+    uniqueIndex("membership_person").on(t.anthologyId, t.userId),
+    index("membership_user").on(t.userId),
+  ],
 );
 
 export const invitations = mysqlTable(
@@ -197,7 +210,10 @@ export const calls = mysqlTable("open_call", {
   maxRunPages: int("max_run_pages").notNull().default(4),
   piecesPerPerson: int("pieces_per_person").notNull().default(2),
   allowedInks: json("allowed_inks").$type<string[]>().notNull(),
-  feeKind: varchar("fee_kind", { length: 16, enum: FEE_KINDS }).$type<FeeKind>().notNull().default("none"),
+  feeKind: varchar("fee_kind", { length: 16, enum: FEE_KINDS })
+    .$type<FeeKind>()
+    .notNull()
+    .default("none"),
   feeCents: int("fee_cents").notNull().default(0),
   /** Contributors' pooled share of net sales, in basis points (1 % = 100). */
   salesShareBasisPoints: int("sales_share_bp").notNull().default(0),
@@ -225,7 +241,10 @@ export const pieces = mysqlTable(
     creditLine: varchar("credit_line", { length: 200 }).notNull(),
     creditApprovedAt: datetime("credit_approved_at", { mode: "date" }),
     statement: text("statement"),
-    status: varchar("status", { length: 24, enum: PIECE_STATUSES }).$type<PieceStatus>().notNull().default("awaiting-review"),
+    status: varchar("status", { length: 24, enum: PIECE_STATUSES })
+      .$type<PieceStatus>()
+      .notNull()
+      .default("awaiting-review"),
     /** Worst severity over the current file of every page: blocker, warning, note, pass or missing. */
     verdict: varchar("verdict", { length: 16 }).notNull().default("missing"),
     /** Kept out of the map when accepted but deliberately left out of this issue. */
@@ -233,7 +252,10 @@ export const pieces = mysqlTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index("piece_anthology").on(t.anthologyId, t.status), index("piece_contributor").on(t.contributorId)],
+  (t) => [
+    index("piece_anthology").on(t.anthologyId, t.status),
+    index("piece_contributor").on(t.contributorId),
+  ],
 );
 
 export const piecePages = mysqlTable(
@@ -319,7 +341,10 @@ export const pageSlots = mysqlTable(
       .references(() => anthologies.id, { onDelete: "cascade" }),
     /** Reader page number, 1 = front cover. */
     pageNumber: int("page_number").notNull(),
-    reservation: varchar("reservation", { length: 16, enum: SLOT_RESERVATIONS }).$type<SlotReservation>(),
+    reservation: varchar("reservation", {
+      length: 16,
+      enum: SLOT_RESERVATIONS,
+    }).$type<SlotReservation>(),
     pieceId: ref("piece_id").references(() => pieces.id, { onDelete: "set null" }),
     /** Which page of the piece sits here (1-based). */
     piecePageIndex: int("piece_page_index"),

@@ -8,14 +8,17 @@ import { seedPageMap } from "./seed/page-map";
 
 async function main() {
   const demo = await seedDemoPress(db);
-  console.log(`demo seeded: ${demo.people.length} people, anthologies ${demo.almanac.slug} and ${demo.jam.slug}`);
+  console.log(
+    `demo seeded: ${demo.people.length} people, anthologies ${demo.almanac.slug} and ${demo.jam.slug}`,
+  );
   await seedOpenCall(db);
   const submissions = await seedSubmissions(db); // needs the upload fake running (see db/seed/submissions.ts)
   if (submissions) console.log(`demo submissions seeded: ${submissions} pieces`);
   await seedReview(db); // after any seed that adds pieces: it lays history and a note over them
   // Last: the page map places accepted pieces that the seeds above may have added.
   const map = await seedPageMap(db);
-  if (map) console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
+  if (map)
+    console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
 }
 
 main()

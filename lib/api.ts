@@ -38,12 +38,16 @@ export async function requireApiAccess(slug: string, action: Action): Promise<An
   const anthology = await findAnthologyBySlug(slug);
   if (!anthology) throw new HttpError(404, `No anthology called "${slug}".`);
   const role = await findRole(anthology.id, user.id);
-  if (!can(role, action)) throw new HttpError(403, "Your role in this anthology does not allow that.");
+  if (!can(role, action))
+    throw new HttpError(403, "Your role in this anthology does not allow that.");
   return { user, anthology, role };
 }
 
 /** Reads a JSON body and validates it: 400 with field messages when it is not JSON or fails the schema. */
-export async function readJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
+export async function readJson<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+): Promise<z.output<S>> {
   let raw: unknown;
   try {
     raw = await request.json();
@@ -69,7 +73,10 @@ export function apiRoute<C>(handler: Handler<C>): Handler<C> {
         return Response.json({ error: error.message, ...error.extra }, { status: error.status });
       }
       console.error("route handler failed", error);
-      return Response.json({ error: "Something went wrong on our side; nothing was saved." }, { status: 500 });
+      return Response.json(
+        { error: "Something went wrong on our side; nothing was saved." },
+        { status: 500 },
+      );
     }
   };
 }

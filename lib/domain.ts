@@ -10,7 +10,14 @@ export const ROLE_LABELS: Record<Role, string> = {
 };
 
 /** Where an anthology is in its life, in order; it only moves forward. */
-export const ANTHOLOGY_STAGES = ["planning", "call-open", "call-closed", "laying-out", "printing", "wrapped-up"] as const;
+export const ANTHOLOGY_STAGES = [
+  "planning",
+  "call-open",
+  "call-closed",
+  "laying-out",
+  "printing",
+  "wrapped-up",
+] as const;
 export type AnthologyStage = (typeof ANTHOLOGY_STAGES)[number];
 export const STAGE_LABELS: Record<AnthologyStage, string> = {
   planning: "Planning",
@@ -69,5 +76,13 @@ export const PRINT_METHOD_LABELS: Record<PrintMethod, string> = {
 export const FEE_KINDS = ["none", "per-piece", "per-page"] as const;
 export type FeeKind = (typeof FEE_KINDS)[number];
 
-export const SLOT_RESERVATIONS = ["cover", "inside-cover", "contents", "credits", "colophon", "ad", "blank"] as const;
+export const SLOT_RESERVATIONS = [
+  "cover",
+  "inside-cover",
+  "contents",
+  "credits",
+  "colophon",
+  "ad",
+  "blank",
+] as const;
 export type SlotReservation = (typeof SLOT_RESERVATIONS)[number];

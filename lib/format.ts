@@ -3,7 +3,11 @@ import { findPreset } from "@/lib/print/sizes";
 import { mmToIn } from "@/lib/print/units";
 
 /** "Half letter (5.5 x 8.5 in)" for a preset, "120 x 170 mm" for a custom size. */
-export function formatTrim(a: { trimPreset: string; trimWidthMm: number; trimHeightMm: number }): string {
+export function formatTrim(a: {
+  trimPreset: string;
+  trimWidthMm: number;
+  trimHeightMm: number;
+}): string {
   const preset = findPreset(a.trimPreset);
   const round = (n: number) => Number(n.toFixed(2));
   const size = `${round(a.trimWidthMm)} x ${round(a.trimHeightMm)} mm`;

@@ -144,7 +144,9 @@ export async function startSmtpSink(options) {
       stream.on("end", () => {
         if (stream.sizeExceeded) {
           // smtp-server answers with the error's responseCode.
-          const err = Object.assign(new Error("Message exceeds the size limit"), { responseCode: 552 });
+          const err = Object.assign(new Error("Message exceeds the size limit"), {
+            responseCode: 552,
+          });
           return callback(err);
         }
         parseMessage(Buffer.concat(chunks), session.envelope)

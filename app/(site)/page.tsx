@@ -7,11 +7,26 @@ import { ROLE_LABELS, type Role } from "@/lib/domain";
 import { formatDateInZone } from "@/lib/time-zones";
 
 const STEPS = [
-  ["Open a call", "Theme, deadline, what a piece may be, the inks, the terms and a public page to share."],
-  ["Check every file on arrival", "Pixel size, bleed, resolution at print size and colour mode, explained with the numbers and the fix."],
-  ["Plan the pages", "A page map that knows sheets, spreads and creep, and groups pieces by ink to save drum passes."],
-  ["Print and finish", "Imposed print files, sheet and cost counts, print-shop comparison and finishing in batches."],
-  ["Credit and pay", "Approved credit lines, contributor copies and exact-cent payouts from the same records."],
+  [
+    "Open a call",
+    "Theme, deadline, what a piece may be, the inks, the terms and a public page to share.",
+  ],
+  [
+    "Check every file on arrival",
+    "Pixel size, bleed, resolution at print size and colour mode, explained with the numbers and the fix.",
+  ],
+  [
+    "Plan the pages",
+    "A page map that knows sheets, spreads and creep, and groups pieces by ink to save drum passes.",
+  ],
+  [
+    "Print and finish",
+    "Imposed print files, sheet and cost counts, print-shop comparison and finishing in batches.",
+  ],
+  [
+    "Credit and pay",
+    "Approved credit lines, contributor copies and exact-cent payouts from the same records.",
+  ],
 ] as const;
 
 /** Calls taking work now (or soon); the landing page still renders when the database is away. */
@@ -37,9 +52,9 @@ export default async function Landing() {
             Gather the work, fold the booklet, pay everyone to the cent.
           </h1>
           <p className="mt-5 max-w-xl text-lg text-ink-soft">
-            Quireline runs a collaborative zine or small-press anthology from the open call to the last contributor
-            payout: spec checks on every upload, a page map that knows how sheets fold, print and finishing plans, and
-            credits tied to the same records.
+            Quireline runs a collaborative zine or small-press anthology from the open call to the
+            last contributor payout: spec checks on every upload, a page map that knows how sheets
+            fold, print and finishing plans, and credits tied to the same records.
           </p>
           <div className="mt-7 flex flex-wrap gap-3">
             <Link href="/sign-up" className={linkButtonClass("accent")}>
@@ -59,18 +74,24 @@ export default async function Landing() {
         </h2>
         {STEPS.map(([title, text], n) => (
           <div key={title} className="rounded-lg border border-ink/10 bg-white/50 p-4">
-            <p className="font-mono text-xs text-persimmon-dark">{String(n + 1).padStart(2, "0")}</p>
+            <p className="font-mono text-xs text-persimmon-dark">
+              {String(n + 1).padStart(2, "0")}
+            </p>
             <h3 className="mt-1 text-lg font-semibold">{title}</h3>
             <p className="mt-2 text-sm text-ink-soft">{text}</p>
           </div>
         ))}
       </section>
 
-      <section className="rounded-lg border border-dashed border-ink/30 p-6" data-testid="demo-accounts">
+      <section
+        className="rounded-lg border border-dashed border-ink/30 p-6"
+        data-testid="demo-accounts"
+      >
         <h2 className="text-2xl font-semibold">Try the demo</h2>
         <p className="mt-2 text-sm text-ink-soft">
-          The Marrowbend Print Collective is putting together <em>Low Tide Almanac</em>, a half-letter anthology printed
-          on a two-drum stencil duplicator. Sign in as any of its people:
+          The Marrowbend Print Collective is putting together <em>Low Tide Almanac</em>, a
+          half-letter anthology printed on a two-drum stencil duplicator. Sign in as any of its
+          people:
         </p>
         {calls.length > 0 ? (
           <div className="mt-4" data-testid="open-calls">
@@ -120,12 +141,49 @@ export default async function Landing() {
 /** A folded sheet opened flat: two pages, the stitch line, and the trim, bleed and safe lines. */
 function BookletSketch() {
   return (
-    <svg viewBox="0 0 320 220" className="w-full drop-shadow-md" role="img" aria-label="An open booklet spread with trim, bleed and safe-area lines">
-      <rect x="10" y="10" width="300" height="200" fill="#fdfaf3" stroke="#2a6f6b" strokeDasharray="4 3" />
+    <svg
+      viewBox="0 0 320 220"
+      className="w-full drop-shadow-md"
+      role="img"
+      aria-label="An open booklet spread with trim, bleed and safe-area lines"
+    >
+      <rect
+        x="10"
+        y="10"
+        width="300"
+        height="200"
+        fill="#fdfaf3"
+        stroke="#2a6f6b"
+        strokeDasharray="4 3"
+      />
       <rect x="20" y="20" width="280" height="180" fill="#fffdf8" stroke="#c8553d" />
-      <rect x="34" y="34" width="112" height="152" fill="none" stroke="#d9a441" strokeDasharray="2 3" />
-      <rect x="174" y="34" width="112" height="152" fill="none" stroke="#d9a441" strokeDasharray="2 3" />
-      <line x1="160" y1="20" x2="160" y2="200" stroke="#1f2a24" strokeDasharray="6 5" strokeWidth="1.5" />
+      <rect
+        x="34"
+        y="34"
+        width="112"
+        height="152"
+        fill="none"
+        stroke="#d9a441"
+        strokeDasharray="2 3"
+      />
+      <rect
+        x="174"
+        y="34"
+        width="112"
+        height="152"
+        fill="none"
+        stroke="#d9a441"
+        strokeDasharray="2 3"
+      />
+      <line
+        x1="160"
+        y1="20"
+        x2="160"
+        y2="200"
+        stroke="#1f2a24"
+        strokeDasharray="6 5"
+        strokeWidth="1.5"
+      />
       <circle cx="160" cy="70" r="3" fill="#1f2a24" />
       <circle cx="160" cy="150" r="3" fill="#1f2a24" />
       <path d="M46 160 Q80 60 130 150" stroke="#2a6f6b" strokeWidth="6" fill="none" />

@@ -6,10 +6,20 @@ const VARIANTS = {
   quiet: "bg-transparent text-ink border border-ink/30 hover:border-ink hover:bg-paper-deep",
 } as const;
 
-type Props = ButtonHTMLAttributes<HTMLButtonElement> & { variant?: keyof typeof VARIANTS; busy?: boolean };
+type Props = ButtonHTMLAttributes<HTMLButtonElement> & {
+  variant?: keyof typeof VARIANTS;
+  busy?: boolean;
+};
 
 /** Quireline's button; `busy` disables it and says so to screen readers. */
-export function Button({ variant = "primary", busy = false, className = "", children, disabled, ...rest }: Props) {
+export function Button({
+  variant = "primary",
+  busy = false,
+  className = "",
+  children,
+  disabled,
+  ...rest
+}: Props) {
   return (
     <button
       {...rest}

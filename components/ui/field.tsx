@@ -28,7 +28,11 @@ export function Field({
         </p>
       ) : null}
       {error ? (
-        <p id={`${id}-error`} data-testid={`error-${id}`} className="text-xs font-semibold text-persimmon-dark">
+        <p
+          id={`${id}-error`}
+          data-testid={`error-${id}`}
+          className="text-xs font-semibold text-persimmon-dark"
+        >
           {error}
         </p>
       ) : null}
@@ -41,5 +45,9 @@ export const inputClass =
 
 /** Props that tie an input to its Field's hint and error. */
 export function describedBy(id: string, error?: string) {
-  return { id, "aria-invalid": error ? true : undefined, "aria-describedby": error ? `${id}-error` : `${id}-hint` } as const;
+  return {
+    id,
+    "aria-invalid": error ? true : undefined,
+    "aria-describedby": error ? `${id}-error` : `${id}-hint`,
+  } as const;
 }

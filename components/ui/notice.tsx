@@ -8,7 +8,17 @@ const TONES = {
 } as const;
 
 /** A boxed message; `testId` gives tests a handle that does not collide with Next's route announcer. */
-export function Notice({ tone = "info", title, children, testId }: { tone?: keyof typeof TONES; title?: string; children: ReactNode; testId?: string }) {
+export function Notice({
+  tone = "info",
+  title,
+  children,
+  testId,
+}: {
+  tone?: keyof typeof TONES;
+  title?: string;
+  children: ReactNode;
+  testId?: string;
+}) {
   return (
     <div data-testid={testId} className={`rounded-md border px-4 py-3 text-sm ${TONES[tone]}`}>
       {title ? <p className="mb-1 font-semibold">{title}</p> : null}

@@ -6,7 +6,11 @@ import type { Role } from "@/lib/domain";
 export type Anthology = typeof schema.anthologies.$inferSelect;
 
 export async function findAnthologyBySlug(slug: string): Promise<Anthology | undefined> {
-  const [row] = await db.select().from(schema.anthologies).where(eq(schema.anthologies.slug, slug)).limit(1);
+  const [row] = await db
+    .select()
+    .from(schema.anthologies)
+    .where(eq(schema.anthologies.slug, slug))
+    .limit(1);
   return row;
 }
 
@@ -14,7 +18,9 @@ export async function findRole(anthologyId: number, userId: string): Promise<Rol
   const [row] = await db
     .select({ role: schema.memberships.role })
     .from(schema.memberships)
-    .where(and(eq(schema.memberships.anthologyId, anthologyId), eq(schema.memberships.userId, userId)))
+    .where(
+      and(eq(schema.memberships.anthologyId, anthologyId), eq(schema.memberships.userId, userId)),
+    )
     .limit(1);
   return row?.role ?? null;
 }
@@ -71,10 +77,16 @@ export async function createAnthology(
       if (!taken) break;
       slug = `${wantedSlug.slice(0, 55)}-${n}`;
     }
-    const [inserted] = await tx.insert(schema.anthologies).values({ ...fields, slug, createdBy: userId }).$returningId();
+    const [inserted] = await tx
+      .insert(schema.anthologies)
+      .values({ ...fields, slug, createdBy: userId })
+      .$returningId();
     if (!inserted) throw new Error("insert returned no id");
     await tx.insert(schema.memberships).values({ anthologyId: inserted.id, userId, role: "lead" });
-    const [row] = await tx.select().from(schema.anthologies).where(eq(schema.anthologies.id, inserted.id));
+    const [row] = await tx
+      .select()
+      .from(schema.anthologies)
+      .where(eq(schema.anthologies.id, inserted.id));
     if (!row) throw new Error("anthology vanished after insert");
     return row;
   });

@@ -14,7 +14,12 @@ const INVITATION_DAYS = 14;
 const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
 /** Records an invitation and e-mails its link; the e-mail is logged. */
-export async function inviteToAnthology(anthology: Anthology, inviter: { id: string; name: string | null }, email: string, role: Role) {
+export async function inviteToAnthology(
+  anthology: Anthology,
+  inviter: { id: string; name: string | null },
+  email: string,
+  role: Role,
+) {
   const token = randomBytes(24).toString("base64url");
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 24 * 3600 * 1000);
   await db.insert(schema.invitations).values({
@@ -32,7 +37,14 @@ export async function inviteToAnthology(anthology: Anthology, inviter: { id: str
     `${who} invited you to join "${anthology.title}" as ${ROLE_LABELS[role].toLowerCase()}.`,
     `The invitation is good for ${INVITATION_DAYS} days.`,
   ];
-  await sendLoggedMail({ anthologyId: anthology.id, kind: "invitation", to: email, subject, text: `${lines.join("\n")}\n\n${link}\n`, html: simpleHtml(lines, { href: link, label: "Open the invitation" }) });
+  await sendLoggedMail({
+    anthologyId: anthology.id,
+    kind: "invitation",
+    to: email,
+    subject,
+    text: `${lines.join("\n")}\n\n${link}\n`,
+    html: simpleHtml(lines, { href: link, label: "Open the invitation" }),
+  });
   return { expiresAt };
 }
 
@@ -67,14 +79,25 @@ export async function acceptInvitation(token: string, userId: string) {
     const [existing] = await tx
       .select()
       .from(schema.memberships)
-      .where(and(eq(schema.memberships.anthologyId, invitation.anthologyId), eq(schema.memberships.userId, userId)));
+      .where(
+        and(
+          eq(schema.memberships.anthologyId, invitation.anthologyId),
+          eq(schema.memberships.userId, userId),
+        ),
+      );
     if (!existing) {
-      await tx.insert(schema.memberships).values({ anthologyId: invitation.anthologyId, userId, role: invitation.role });
+      await tx
+        .insert(schema.memberships)
+        .values({ anthologyId: invitation.anthologyId, userId, role: invitation.role });
     }
     await tx
       .update(schema.invitations)
       .set({ acceptedAt: new Date(), acceptedBy: userId })
       .where(eq(schema.invitations.id, invitation.id));
-    return { ok: true as const, anthologyId: invitation.anthologyId, keptRole: existing?.role ?? null };
+    return {
+      ok: true as const,
+      anthologyId: invitation.anthologyId,
+      keptRole: existing?.role ?? null,
+    };
   });
 }

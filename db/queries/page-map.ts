@@ -11,7 +11,12 @@ import { countPasses } from "@/lib/map/passes";
 import { pagesInWords, piecePages } from "@/lib/map/state";
 import type { MapPiece, MapSlot, MapState, Proposal } from "@/lib/map/types";
 import { checkedChange } from "@/lib/map-edits/apply";
-import type { MapEventView, MapPayload, MapPieceCard, NoticesAnswer } from "@/lib/map-edits/payload";
+import type {
+  MapEventView,
+  MapPayload,
+  MapPieceCard,
+  NoticesAnswer,
+} from "@/lib/map-edits/payload";
 import type { SessionUser } from "@/lib/auth/guard";
 import { env } from "@/lib/env";
 import { simpleHtml } from "@/lib/mail";
@@ -28,11 +33,15 @@ const u = schema.users;
 
 /* ---------- Reading ---------- */
 
-type PieceRow = MapPiece & MapPieceCard & { contributorId: string; contributorEmail: string | null };
+type PieceRow = MapPiece &
+  MapPieceCard & { contributorId: string; contributorEmail: string | null };
 
 /** Accepted pieces, plus any piece still on the map after leaving "accepted" (shown as left out so it can be taken off). */
 async function readPieces(tx: Tx, anthologyId: number): Promise<PieceRow[]> {
-  const onMap = tx.select({ id: s.pieceId }).from(s).where(and(eq(s.anthologyId, anthologyId), sql`${s.pieceId} IS NOT NULL`));
+  const onMap = tx
+    .select({ id: s.pieceId })
+    .from(s)
+    .where(and(eq(s.anthologyId, anthologyId), sql`${s.pieceId} IS NOT NULL`));
   const rows = await tx
     .select({
       id: p.id,
@@ -60,7 +69,13 @@ async function readPieces(tx: Tx, anthologyId: number): Promise<PieceRow[]> {
 
 async function readSlots(tx: Tx, anthologyId: number, forUpdate: boolean): Promise<MapSlot[]> {
   const query = tx
-    .select({ page: s.pageNumber, reservation: s.reservation, pieceId: s.pieceId, piecePageIndex: s.piecePageIndex, locked: s.locked })
+    .select({
+      page: s.pageNumber,
+      reservation: s.reservation,
+      pieceId: s.pieceId,
+      piecePageIndex: s.piecePageIndex,
+      locked: s.locked,
+    })
     .from(s)
     .where(eq(s.anthologyId, anthologyId))
     .orderBy(asc(s.pageNumber));
@@ -76,23 +91,40 @@ function toState(anthology: Anthology, slots: MapSlot[], pieces: PieceRow[]): Ma
     inksPerPass: anthology.inksPerPass,
     pressInks: anthology.inks,
     slots,
-    pieces: pieces.map(({ id, title, kind, pageCount, inks, leftOut }) => ({ id, title, kind, pageCount, inks, leftOut })),
+    pieces: pieces.map(({ id, title, kind, pageCount, inks, leftOut }) => ({
+      id,
+      title,
+      kind,
+      pageCount,
+      inks,
+      leftOut,
+    })),
   };
 }
 
 /** The page count a new map starts with: the target, padded to whole sheets for a saddle stitch. */
-export function startingPageCount(anthology: Pick<Anthology, "binding" | "pageCountTarget">): number {
-  return anthology.binding === "saddle-stitch" ? padToMultipleOf4(anthology.pageCountTarget).pages : anthology.pageCountTarget;
+export function startingPageCount(
+  anthology: Pick<Anthology, "binding" | "pageCountTarget">,
+): number {
+  return anthology.binding === "saddle-stitch"
+    ? padToMultipleOf4(anthology.pageCountTarget).pages
+    : anthology.pageCountTarget;
 }
 
 /** Creates the slots the first time the map is opened: one per page, the front and back covers kept for the cover. */
 async function ensureSlots(anthology: Anthology): Promise<void> {
-  const [existing] = await db.select({ n: sql<number>`count(*)` }).from(s).where(eq(s.anthologyId, anthology.id));
+  const [existing] = await db
+    .select({ n: sql<number>`count(*)` })
+    .from(s)
+    .where(eq(s.anthologyId, anthology.id));
   if (Number(existing?.n ?? 0) > 0) return;
   await db.transaction(async (tx) => {
     const [row] = await tx.select().from(a).where(eq(a.id, anthology.id)).for("update");
     if (!row) return;
-    const [again] = await tx.select({ n: sql<number>`count(*)` }).from(s).where(eq(s.anthologyId, anthology.id));
+    const [again] = await tx
+      .select({ n: sql<number>`count(*)` })
+      .from(s)
+      .where(eq(s.anthologyId, anthology.id));
     if (Number(again?.n ?? 0) > 0) return;
     const pages = startingPageCount(row);
     await tx.insert(s).values(
@@ -138,11 +170,18 @@ async function listEvents(tx: Tx, anthologyId: number, limit = 40): Promise<MapE
 function creepFor(anthology: Anthology, state: MapState): number[] {
   const sheets = sheetSides(state.pageCount, state.binding).sheets.length;
   const coverCaliper =
-    anthology.coverStock === "separate" && anthology.coverPaperGsm ? defaultCaliperMm(anthology.coverPaperGsm) : undefined;
+    anthology.coverStock === "separate" && anthology.coverPaperGsm
+      ? defaultCaliperMm(anthology.coverPaperGsm)
+      : undefined;
   return creepPerSheetMm(sheets, sheetCalipersMm(sheets, anthology.paperCaliperMm, coverCaliper));
 }
 
-async function payloadIn(tx: Tx, anthologyId: number, canEdit: boolean, copies: number): Promise<MapPayload> {
+async function payloadIn(
+  tx: Tx,
+  anthologyId: number,
+  canEdit: boolean,
+  copies: number,
+): Promise<MapPayload> {
   const [anthology] = await tx.select().from(a).where(eq(a.id, anthologyId));
   if (!anthology) throw new Error(`anthology ${anthologyId} vanished`);
   const pieces = await readPieces(tx, anthologyId);
@@ -169,7 +208,10 @@ async function payloadIn(tx: Tx, anthologyId: number, canEdit: boolean, copies: 
 }
 
 /** The map as the screen needs it, created from the page count target the first time. */
-export async function loadMap(anthology: Anthology, opts: { canEdit: boolean; copies: number }): Promise<MapPayload> {
+export async function loadMap(
+  anthology: Anthology,
+  opts: { canEdit: boolean; copies: number },
+): Promise<MapPayload> {
   await ensureSlots(anthology);
   return db.transaction((tx) => payloadIn(tx, anthology.id, opts.canEdit, opts.copies));
 }
@@ -182,18 +224,37 @@ export type ChangeOutcome =
   | { kind: "refused"; reason: string; pages: number[]; pieceIds: number[] };
 
 /** Writes the slots of `next` over `before`: updates changed pages, adds new ones, deletes pages past the end. */
-async function writeSlots(tx: Tx, anthologyId: number, before: MapSlot[], next: MapSlot[]): Promise<void> {
+async function writeSlots(
+  tx: Tx,
+  anthologyId: number,
+  before: MapSlot[],
+  next: MapSlot[],
+): Promise<void> {
   const old = new Map(before.map((x) => [x.page, x]));
   const same = (x: MapSlot, y: MapSlot | undefined) =>
-    y !== undefined && x.reservation === y.reservation && x.pieceId === y.pieceId && x.piecePageIndex === y.piecePageIndex && x.locked === y.locked;
+    y !== undefined &&
+    x.reservation === y.reservation &&
+    x.pieceId === y.pieceId &&
+    x.piecePageIndex === y.piecePageIndex &&
+    x.locked === y.locked;
   const inserts: (typeof s.$inferInsert)[] = [];
   for (const slot of next) {
     const prior = old.get(slot.page);
-    const fields = { reservation: slot.reservation, pieceId: slot.pieceId, piecePageIndex: slot.piecePageIndex, locked: slot.locked };
+    const fields = {
+      reservation: slot.reservation,
+      pieceId: slot.pieceId,
+      piecePageIndex: slot.piecePageIndex,
+      locked: slot.locked,
+    };
     if (!prior) inserts.push({ anthologyId, pageNumber: slot.page, ...fields });
-    else if (!same(slot, prior)) await tx.update(s).set(fields).where(and(eq(s.anthologyId, anthologyId), eq(s.pageNumber, slot.page)));
+    else if (!same(slot, prior))
+      await tx
+        .update(s)
+        .set(fields)
+        .where(and(eq(s.anthologyId, anthologyId), eq(s.pageNumber, slot.page)));
   }
-  if (next.length < before.length) await tx.delete(s).where(and(eq(s.anthologyId, anthologyId), gt(s.pageNumber, next.length)));
+  if (next.length < before.length)
+    await tx.delete(s).where(and(eq(s.anthologyId, anthologyId), gt(s.pageNumber, next.length)));
   if (inserts.length) await tx.insert(s).values(inserts);
 }
 
@@ -202,40 +263,70 @@ async function writeSlots(tx: Tx, anthologyId: number, before: MapSlot[], next: 
  * one at a time), the version compared, the change run through the map engine and the save rule,
  * the slots written, the version bumped and the change recorded in the history.
  */
-export async function changeMap(anthology: Anthology, user: SessionUser, request: MapChangeRequest, copies: number): Promise<ChangeOutcome> {
+export async function changeMap(
+  anthology: Anthology,
+  user: SessionUser,
+  request: MapChangeRequest,
+  copies: number,
+): Promise<ChangeOutcome> {
   await ensureSlots(anthology);
   return db.transaction(async (tx) => {
     const [row] = await tx.select().from(a).where(eq(a.id, anthology.id)).for("update");
     if (!row) throw new Error(`anthology ${anthology.id} vanished`);
-    if (row.mapVersion !== request.version) return { kind: "stale", map: await payloadIn(tx, row.id, true, copies) };
+    if (row.mapVersion !== request.version)
+      return { kind: "stale", map: await payloadIn(tx, row.id, true, copies) };
     const slots = await readSlots(tx, row.id, true);
     const state = toState(row, slots, await readPieces(tx, row.id));
     const result = checkedChange(state, request.change);
-    if (!result.ok) return { kind: "refused", reason: result.reason, pages: result.pages, pieceIds: result.pieceIds };
+    if (!result.ok)
+      return {
+        kind: "refused",
+        reason: result.reason,
+        pages: result.pages,
+        pieceIds: result.pieceIds,
+      };
     await writeSlots(tx, row.id, slots, result.state.slots);
     const version = row.mapVersion + 1;
     await tx
       .update(a)
-      .set({ mapVersion: version, ...(result.state.pageCount !== state.pageCount ? { pageCountTarget: result.state.pageCount } : {}) })
+      .set({
+        mapVersion: version,
+        ...(result.state.pageCount !== state.pageCount
+          ? { pageCountTarget: result.state.pageCount }
+          : {}),
+      })
       .where(eq(a.id, row.id));
     await tx.insert(schema.mapEvents).values({
       anthologyId: row.id,
       actorId: user.id,
       mapVersion: version,
       action: request.change.op,
-      detail: { summary: result.summary, change: request.change, changedPages: result.changedPages },
+      detail: {
+        summary: result.summary,
+        change: request.change,
+        changedPages: result.changedPages,
+      },
     });
-    return { kind: "saved", map: await payloadIn(tx, row.id, true, copies), summary: result.summary };
+    return {
+      kind: "saved",
+      map: await payloadIn(tx, row.id, true, copies),
+      summary: result.summary,
+    };
   });
 }
 
 /** The current map and pieces, for the proposal (read only). */
-export async function readMapState(anthology: Anthology): Promise<{ version: number; state: MapState }> {
+export async function readMapState(
+  anthology: Anthology,
+): Promise<{ version: number; state: MapState }> {
   await ensureSlots(anthology);
   return db.transaction(async (tx) => {
     const [row] = await tx.select().from(a).where(eq(a.id, anthology.id));
     if (!row) throw new Error(`anthology ${anthology.id} vanished`);
-    return { version: row.mapVersion, state: toState(row, await readSlots(tx, row.id, false), await readPieces(tx, row.id)) };
+    return {
+      version: row.mapVersion,
+      state: toState(row, await readSlots(tx, row.id, false), await readPieces(tx, row.id)),
+    };
   });
 }
 
@@ -254,12 +345,19 @@ export async function sendPageNotices(anthology: Anthology): Promise<NoticesAnsw
     return { pieces, state: toState(anthology, await readSlots(tx, anthology.id, false), pieces) };
   });
   const where = piecePages(state);
-  const byPerson = new Map<string, { email: string | null; name: string; lines: { title: string; pages: number[] }[] }>();
+  const byPerson = new Map<
+    string,
+    { email: string | null; name: string; lines: { title: string; pages: number[] }[] }
+  >();
   for (const piece of pieces) {
     if (piece.status !== "accepted") continue;
     const pages = (where.get(piece.id) ?? []).map((w) => w.page);
     if (pages.length === 0) continue;
-    const entry = byPerson.get(piece.contributorId) ?? { email: piece.contributorEmail, name: piece.contributorName, lines: [] };
+    const entry = byPerson.get(piece.contributorId) ?? {
+      email: piece.contributorEmail,
+      name: piece.contributorName,
+      lines: [],
+    };
     entry.lines.push({ title: piece.title, pages });
     byPerson.set(piece.contributorId, entry);
   }
@@ -271,9 +369,16 @@ export async function sendPageNotices(anthology: Anthology): Promise<NoticesAnsw
       continue;
     }
     const lines = person.lines.map((l) => `“${l.title}”: ${pagesInWords(l.pages)}`);
-    const hash = createHash("sha256").update(JSON.stringify(person.lines)).digest("hex").slice(0, 16);
+    const hash = createHash("sha256")
+      .update(JSON.stringify(person.lines))
+      .digest("hex")
+      .slice(0, 16);
     const dedupeKey = `page-notice:${anthology.id}:${contributorId}:${hash}`;
-    const [already] = await db.select({ id: schema.emailLog.id }).from(schema.emailLog).where(eq(schema.emailLog.dedupeKey, dedupeKey)).limit(1);
+    const [already] = await db
+      .select({ id: schema.emailLog.id })
+      .from(schema.emailLog)
+      .where(eq(schema.emailLog.dedupeKey, dedupeKey))
+      .limit(1);
     if (already) {
       answer.alreadySent++;
       continue;
@@ -288,7 +393,10 @@ export async function sendPageNotices(anthology: Anthology): Promise<NoticesAnsw
         to: person.email,
         subject,
         text: `${intro}\n\n${lines.map((l) => `- ${l}`).join("\n")}\n\n${outro}\n\n${link}`,
-        html: simpleHtml([intro, ...lines, outro], { href: link, label: `Open ${anthology.title}` }),
+        html: simpleHtml([intro, ...lines, outro], {
+          href: link,
+          label: `Open ${anthology.title}`,
+        }),
         dedupeKey,
       });
       if (sent) answer.sent++;

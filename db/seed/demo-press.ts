@@ -15,7 +15,11 @@ export type DemoPerson = { id: string; role: Role; name: string; email: string }
 export async function seedPeople(db: Db): Promise<DemoPerson[]> {
   const people: DemoPerson[] = [];
   for (const account of demoAccounts) {
-    const [existing] = await db.select().from(schema.users).where(eq(schema.users.email, account.email)).limit(1);
+    const [existing] = await db
+      .select()
+      .from(schema.users)
+      .where(eq(schema.users.email, account.email))
+      .limit(1);
     let id = existing?.id;
     if (!existing) {
       id = crypto.randomUUID();
@@ -26,8 +30,14 @@ export async function seedPeople(db: Db): Promise<DemoPerson[]> {
         emailVerified: new Date(),
         passwordHash: await hashPassword(account.password),
       });
-    } else if (!existing.passwordHash || !(await verifyPassword(existing.passwordHash, account.password))) {
-      await db.update(schema.users).set({ passwordHash: await hashPassword(account.password) }).where(eq(schema.users.id, existing.id));
+    } else if (
+      !existing.passwordHash ||
+      !(await verifyPassword(existing.passwordHash, account.password))
+    ) {
+      await db
+        .update(schema.users)
+        .set({ passwordHash: await hashPassword(account.password) })
+        .where(eq(schema.users.id, existing.id));
     }
     people.push({ id: id!, role: account.role as Role, name: account.name, email: account.email });
   }
@@ -44,17 +54,30 @@ export async function seedAnthology(
   createdBy: string,
   members: { userId: string; role: Role }[],
 ) {
-  let [row] = await db.select().from(schema.anthologies).where(eq(schema.anthologies.slug, slug)).limit(1);
+  let [row] = await db
+    .select()
+    .from(schema.anthologies)
+    .where(eq(schema.anthologies.slug, slug))
+    .limit(1);
   if (!row) {
     await db.insert(schema.anthologies).values({ ...fields, slug, createdBy });
-    [row] = await db.select().from(schema.anthologies).where(eq(schema.anthologies.slug, slug)).limit(1);
+    [row] = await db
+      .select()
+      .from(schema.anthologies)
+      .where(eq(schema.anthologies.slug, slug))
+      .limit(1);
   }
   if (!row) throw new Error(`could not seed ${slug}`);
   for (const member of members) {
     const [existing] = await db
       .select({ id: schema.memberships.id })
       .from(schema.memberships)
-      .where(and(eq(schema.memberships.anthologyId, row.id), eq(schema.memberships.userId, member.userId)))
+      .where(
+        and(
+          eq(schema.memberships.anthologyId, row.id),
+          eq(schema.memberships.userId, member.userId),
+        ),
+      )
       .limit(1);
     if (!existing) await db.insert(schema.memberships).values({ anthologyId: row.id, ...member });
   }
@@ -80,7 +103,8 @@ export async function seedDemoPress(db: Db) {
     {
       title: "Low Tide Almanac",
       pressName: "Marrowbend Print Collective",
-      summary: "Twenty-four pages of tide pools, mudflats and the things the sea leaves behind, in black and teal.",
+      summary:
+        "Twenty-four pages of tide pools, mudflats and the things the sea leaves behind, in black and teal.",
       stage: "planning",
       trimPreset: "half-letter",
       trimWidthMm: inToMm(5.5),

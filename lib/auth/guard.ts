@@ -25,7 +25,11 @@ export async function requireUser(returnTo = "/studio"): Promise<SessionUser> {
 export type AnthologyAccess = { user: SessionUser; anthology: Anthology; role: Role | null };
 
 /** For pages: 404 for an unknown anthology, 403 page when the person's role does not allow `action`. */
-export async function requireAnthologyAccess(slug: string, action: Action, returnTo?: string): Promise<AnthologyAccess> {
+export async function requireAnthologyAccess(
+  slug: string,
+  action: Action,
+  returnTo?: string,
+): Promise<AnthologyAccess> {
   const user = await requireUser(returnTo ?? `/studio/${slug}`);
   const anthology = await findAnthologyBySlug(slug);
   if (!anthology) notFound();

@@ -3,9 +3,23 @@
  * the map screen runs it for instant feedback and the route handler runs it again before saving.
  */
 import { checkMap } from "@/lib/map/check";
-import { lockSlot, movePiece, placePiece, removePiece, resizeMap, setReservation } from "@/lib/map/edit";
+import {
+  lockSlot,
+  movePiece,
+  placePiece,
+  removePiece,
+  resizeMap,
+  setReservation,
+} from "@/lib/map/edit";
 import { pagesInWords, pieceName, piecePages } from "@/lib/map/state";
-import type { EditRefusal, EditResult, MapCheck, MapState, RuleCode, RuleMessage } from "@/lib/map/types";
+import type {
+  EditRefusal,
+  EditResult,
+  MapCheck,
+  MapState,
+  RuleCode,
+  RuleMessage,
+} from "@/lib/map/types";
 import type { MapChange } from "@/lib/validations/page-map";
 import { RESERVATION_PHRASES } from "./labels";
 
@@ -15,7 +29,9 @@ import { RESERVATION_PHRASES } from "./labels";
  * reserved page holding a piece, a page count the binding cannot take) blocks a save when a
  * change creates it.
  */
-export const ALLOWED_WHILE_IN_PROGRESS: ReadonlySet<RuleCode> = new Set<RuleCode>(["piece-not-placed"]);
+export const ALLOWED_WHILE_IN_PROGRESS: ReadonlySet<RuleCode> = new Set<RuleCode>([
+  "piece-not-placed",
+]);
 
 /** Applies one change; a proposal is applied as a whole: its pieces come off, then go on where proposed. */
 export function applyChange(state: MapState, change: MapChange): EditResult {
@@ -31,13 +47,20 @@ export function applyChange(state: MapState, change: MapChange): EditResult {
     case "lock":
       return lockSlot(state, change.page, change.locked);
     case "resize":
-      return resizeMap(state, { delta: change.delta, atPage: change.atPage, force: change.force === true });
+      return resizeMap(state, {
+        delta: change.delta,
+        atPage: change.atPage,
+        force: change.force === true,
+      });
     case "apply-proposal":
       return applyPlacements(state, change.placements);
   }
 }
 
-function applyPlacements(state: MapState, placements: { pieceId: number; pages: number[] }[]): EditResult {
+function applyPlacements(
+  state: MapState,
+  placements: { pieceId: number; pages: number[] }[],
+): EditResult {
   let current = state;
   const changed = new Set<number>();
   const where = piecePages(state);
@@ -63,7 +86,10 @@ function applyPlacements(state: MapState, placements: { pieceId: number; pages: 
       return {
         ok: false,
         code: "page-out-of-range",
-        reason: `The proposal put ${pieceName(state.pieces.find((x) => x.id === p.pieceId), p.pieceId)} on ${pagesInWords(p.pages)}, but it takes ${pagesInWords(on.changedPages)}; ask for a fresh proposal.`,
+        reason: `The proposal put ${pieceName(
+          state.pieces.find((x) => x.id === p.pieceId),
+          p.pieceId,
+        )} on ${pagesInWords(p.pages)}, but it takes ${pagesInWords(on.changedPages)}; ask for a fresh proposal.`,
         pages: p.pages,
         pieceIds: [p.pieceId],
       } satisfies EditRefusal;
@@ -71,7 +97,12 @@ function applyPlacements(state: MapState, placements: { pieceId: number; pages: 
     current = on.state;
     on.changedPages.forEach((page) => changed.add(page));
   }
-  return { ok: true, state: current, changedPages: [...changed].sort((a, b) => a - b), droppedPieceIds: [] };
+  return {
+    ok: true,
+    state: current,
+    changedPages: [...changed].sort((a, b) => a - b),
+    droppedPieceIds: [],
+  };
 }
 
 /** ", sending “X” back to the tray" for pieces a forced removal took off the map. */
@@ -93,7 +124,9 @@ function errorKey(m: RuleMessage): string {
  */
 export function newBlockingErrors(before: MapCheck, after: MapCheck): RuleMessage[] {
   const old = new Set(before.errors.map(errorKey));
-  return after.errors.filter((m) => !ALLOWED_WHILE_IN_PROGRESS.has(m.code) && !old.has(errorKey(m)));
+  return after.errors.filter(
+    (m) => !ALLOWED_WHILE_IN_PROGRESS.has(m.code) && !old.has(errorKey(m)),
+  );
 }
 
 export type CheckedChange =
@@ -103,7 +136,8 @@ export type CheckedChange =
 /** Applies a change and the save rule: refused when the engine refuses or the result has new blocking errors. */
 export function checkedChange(state: MapState, change: MapChange): CheckedChange {
   const result = applyChange(state, change);
-  if (!result.ok) return { ok: false, reason: result.reason, pages: result.pages, pieceIds: result.pieceIds };
+  if (!result.ok)
+    return { ok: false, reason: result.reason, pages: result.pages, pieceIds: result.pieceIds };
   const after = checkMap(result.state);
   const blocking = newBlockingErrors(checkMap(state), after);
   if (blocking.length > 0) {
@@ -114,12 +148,22 @@ export function checkedChange(state: MapState, change: MapChange): CheckedChange
       pieceIds: [...new Set(blocking.flatMap((m) => m.pieceIds))],
     };
   }
-  return { ok: true, state: result.state, check: after, changedPages: result.changedPages, summary: describeChange(state, result.state, change) };
+  return {
+    ok: true,
+    state: result.state,
+    check: after,
+    changedPages: result.changedPages,
+    summary: describeChange(state, result.state, change),
+  };
 }
 
 /** One line for the history panel: who did what, in the map's own words. */
 export function describeChange(before: MapState, after: MapState, change: MapChange): string {
-  const name = (id: number) => pieceName(before.pieces.find((p) => p.id === id), id);
+  const name = (id: number) =>
+    pieceName(
+      before.pieces.find((p) => p.id === id),
+      id,
+    );
   const pagesOf = (s: MapState, id: number) => (piecePages(s).get(id) ?? []).map((w) => w.page);
   switch (change.op) {
     case "place":

@@ -31,8 +31,19 @@ export function severityOf(code: RuleCode): RuleSeverity {
   return ERROR_CODES.has(code) ? "error" : "warning";
 }
 
-function msg(code: RuleCode, message: string, pages: number[] = [], pieceIds: number[] = []): RuleMessage {
-  return { code, severity: severityOf(code), message, pages: [...pages].sort((a, b) => a - b), pieceIds: [...pieceIds].sort((a, b) => a - b) };
+function msg(
+  code: RuleCode,
+  message: string,
+  pages: number[] = [],
+  pieceIds: number[] = [],
+): RuleMessage {
+  return {
+    code,
+    severity: severityOf(code),
+    message,
+    pages: [...pages].sort((a, b) => a - b),
+    pieceIds: [...pieceIds].sort((a, b) => a - b),
+  };
 }
 
 function inkList(inks: readonly string[]): string {
@@ -86,10 +97,21 @@ export function checkMap(state: MapState): MapCheck {
   const outside = [...seen.keys()].filter((p) => !(Number.isInteger(p) && p >= 1 && p <= n));
   if (missing.length || doubled.length || outside.length) {
     const parts: string[] = [];
-    if (missing.length) parts.push(`${pagesInWords(missing)} ${missing.length === 1 ? "has" : "have"} no slot`);
-    if (doubled.length) parts.push(`${pagesInWords(doubled)} ${doubled.length === 1 ? "has" : "have"} more than one slot`);
-    if (outside.length) parts.push(`${pagesInWords(outside)} ${outside.length === 1 ? "is" : "are"} outside 1–${n}`);
-    out.push(msg("slots-do-not-match-pages", `The map should have one slot per page 1–${n}: ${parts.join("; ")}.`, [...missing, ...doubled, ...outside]));
+    if (missing.length)
+      parts.push(`${pagesInWords(missing)} ${missing.length === 1 ? "has" : "have"} no slot`);
+    if (doubled.length)
+      parts.push(
+        `${pagesInWords(doubled)} ${doubled.length === 1 ? "has" : "have"} more than one slot`,
+      );
+    if (outside.length)
+      parts.push(`${pagesInWords(outside)} ${outside.length === 1 ? "is" : "are"} outside 1–${n}`);
+    out.push(
+      msg(
+        "slots-do-not-match-pages",
+        `The map should have one slot per page 1–${n}: ${parts.join("; ")}.`,
+        [...missing, ...doubled, ...outside],
+      ),
+    );
   }
 
   const pieceById = new Map<number, MapPiece>(state.pieces.map((p) => [p.id, p]));
@@ -129,7 +151,14 @@ export function checkMap(state: MapState): MapCheck {
     placements.set(piece.id, list);
   }
   for (const [id, pages] of unknown)
-    out.push(msg("unknown-piece", `${pagesInWords(pages)} ${pages.length === 1 ? "holds" : "hold"} piece ${id}, which is not an accepted piece.`, pages, [id]));
+    out.push(
+      msg(
+        "unknown-piece",
+        `${pagesInWords(pages)} ${pages.length === 1 ? "holds" : "hold"} piece ${id}, which is not an accepted piece.`,
+        pages,
+        [id],
+      ),
+    );
 
   const plan = sheetSides(n, state.binding);
   const sheetOf = sheetByPage(plan);
@@ -139,12 +168,26 @@ export function checkMap(state: MapState): MapCheck {
     const name = pieceName(piece, piece.id);
     const len = pieceLength(piece);
     if (list.length === 0) {
-      if (!piece.leftOut && !(unknown.has(piece.id)))
-        out.push(msg("piece-not-placed", `${name} (${plural(len, "page")}) is not on the map; place it or mark it left out of this issue.`, [], [piece.id]));
+      if (!piece.leftOut && !unknown.has(piece.id))
+        out.push(
+          msg(
+            "piece-not-placed",
+            `${name} (${plural(len, "page")}) is not on the map; place it or mark it left out of this issue.`,
+            [],
+            [piece.id],
+          ),
+        );
       continue;
     }
     if (piece.leftOut)
-      out.push(msg("left-out-piece-placed", `${name} is marked left out but still sits on ${pagesInWords(list.map((l) => l.page))}.`, list.map((l) => l.page), [piece.id]));
+      out.push(
+        msg(
+          "left-out-piece-placed",
+          `${name} is marked left out but still sits on ${pagesInWords(list.map((l) => l.page))}.`,
+          list.map((l) => l.page),
+          [piece.id],
+        ),
+      );
 
     const byIndex = new Map<number, number[]>();
     for (const l of list) byIndex.set(l.index, [...(byIndex.get(l.index) ?? []), l.page]);
@@ -251,12 +294,25 @@ export function checkMap(state: MapState): MapCheck {
       );
   }
 
-  const empty = state.slots.filter((s) => s.page >= 1 && s.page <= n && s.pieceId === null && s.reservation === null).map((s) => s.page).sort((a, b) => a - b);
+  const empty = state.slots
+    .filter((s) => s.page >= 1 && s.page <= n && s.pieceId === null && s.reservation === null)
+    .map((s) => s.page)
+    .sort((a, b) => a - b);
   if (empty.length)
-    out.push(msg("page-empty", `${pagesInWords(empty)} ${empty.length === 1 ? "is" : "are"} empty: place a piece or keep ${empty.length === 1 ? "it" : "them"} as blank.`, empty));
+    out.push(
+      msg(
+        "page-empty",
+        `${pagesInWords(empty)} ${empty.length === 1 ? "is" : "are"} empty: place a piece or keep ${empty.length === 1 ? "it" : "them"} as blank.`,
+        empty,
+      ),
+    );
 
   const first = (m: RuleMessage) => m.pages[0] ?? Number.MAX_SAFE_INTEGER;
-  const sorted = (list: RuleMessage[]) => list.map((m, i) => ({ m, i })).sort((a, b) => first(a.m) - first(b.m) || a.i - b.i).map((x) => x.m);
+  const sorted = (list: RuleMessage[]) =>
+    list
+      .map((m, i) => ({ m, i }))
+      .sort((a, b) => first(a.m) - first(b.m) || a.i - b.i)
+      .map((x) => x.m);
   const errors = sorted(out.filter((m) => m.severity === "error"));
   const warnings = sorted(out.filter((m) => m.severity === "warning"));
   return { ok: errors.length === 0, errors, warnings, messages: [...errors, ...warnings] };

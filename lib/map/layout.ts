@@ -3,11 +3,17 @@
  * printed). Saddle stitch uses the closed-form imposition of lib/print/imposition; fold-only
  * uses the single-sheet fold formats there.
  */
-import { FOLD_FORMATS, padToMultipleOf4, saddleStitchSheets, type FoldFormat } from "@/lib/print/imposition";
+import {
+  FOLD_FORMATS,
+  padToMultipleOf4,
+  saddleStitchSheets,
+  type FoldFormat,
+} from "@/lib/print/imposition";
 import type { Binding, MapReaderSpread, MapSheet, MapSheetSide, SheetPlan } from "./types";
 
 function assertPageCount(pageCount: number): void {
-  if (!Number.isInteger(pageCount) || pageCount < 1) throw new RangeError(`pageCount must be a whole number of at least 1, got ${pageCount}`);
+  if (!Number.isInteger(pageCount) || pageCount < 1)
+    throw new RangeError(`pageCount must be a whole number of at least 1, got ${pageCount}`);
 }
 
 /**
@@ -58,9 +64,15 @@ export function sheetSides(pageCount: number, binding: Binding): SheetPlan {
         .sort((a, b) => a.row - b.row || a.column - b.column)
         .map((p) => p.page);
     // Reading the flat sheet row by row; the eight-page sheet has every page on the front.
-    const sheet: MapSheet = { sheet: 1, front: side(1, "front", panels("front")), back: side(1, "back", panels("back")), centre: true };
+    const sheet: MapSheet = {
+      sheet: 1,
+      front: side(1, "front", panels("front")),
+      back: side(1, "back", panels("back")),
+      centre: true,
+    };
     const back = sheet.back.pages;
-    const centreSpread = back.length >= 2 && fold.id === "half-fold" ? ([2, 3] as [number, number]) : null;
+    const centreSpread =
+      back.length >= 2 && fold.id === "half-fold" ? ([2, 3] as [number, number]) : null;
     return {
       binding,
       pageCount,
@@ -73,14 +85,12 @@ export function sheetSides(pageCount: number, binding: Binding): SheetPlan {
     };
   }
   const { pages } = padToMultipleOf4(pageCount);
-  const sheets = saddleStitchSheets(pages).map(
-    (s): MapSheet => ({
-      sheet: s.sheet,
-      front: side(s.sheet, "front", [s.front.left, s.front.right]),
-      back: side(s.sheet, "back", [s.back.left, s.back.right]),
-      centre: s.sheet === pages / 4,
-    }),
-  );
+  const sheets = saddleStitchSheets(pages).map((s): MapSheet => ({
+    sheet: s.sheet,
+    front: side(s.sheet, "front", [s.front.left, s.front.right]),
+    back: side(s.sheet, "back", [s.back.left, s.back.right]),
+    centre: s.sheet === pages / 4,
+  }));
   const paddingPages: number[] = [];
   for (let p = pageCount + 1; p <= pages; p++) paddingPages.push(p);
   return {
@@ -114,6 +124,8 @@ export function sideIndexByPage(plan: SheetPlan): Int32Array {
 /** Sheet number each page prints on (index 0 unused). */
 export function sheetByPage(plan: SheetPlan): Int32Array {
   const out = new Int32Array(plan.laidOutPages + 1).fill(-1);
-  for (const s of plan.sheets) for (const p of [...s.front.pages, ...s.back.pages]) if (p <= plan.laidOutPages) out[p] = s.sheet;
+  for (const s of plan.sheets)
+    for (const p of [...s.front.pages, ...s.back.pages])
+      if (p <= plan.laidOutPages) out[p] = s.sheet;
   return out;
 }

@@ -29,20 +29,38 @@ function inkRanker(pressInks: readonly string[]) {
 
 /** For every sheet side of the map, its pieces, inks and passes; totals per copy and per run. */
 export function countPasses(state: MapState, copies = 1): PassCount {
-  if (!Number.isInteger(copies) || copies < 0) throw new RangeError(`copies must be a whole number, got ${copies}`);
+  if (!Number.isInteger(copies) || copies < 0)
+    throw new RangeError(`copies must be a whole number, got ${copies}`);
   const plan = sheetSides(state.pageCount, state.binding);
   const inksById = new Map(state.pieces.map((p) => [p.id, p.inks]));
   const placed = state.slots.filter(
-    (s): s is typeof s & { pieceId: number } => s.pieceId !== null && s.page >= 1 && s.page <= state.pageCount && inksById.has(s.pieceId),
+    (s): s is typeof s & { pieceId: number } =>
+      s.pieceId !== null && s.page >= 1 && s.page <= state.pageCount && inksById.has(s.pieceId),
   );
   const byInk = inkRanker(state.pressInks);
-  const raw: Array<{ sheet: number; side: "front" | "back"; key: string; pages: number[]; pieceIds: number[]; inks: string[] }> = [];
+  const raw: Array<{
+    sheet: number;
+    side: "front" | "back";
+    key: string;
+    pages: number[];
+    pieceIds: number[];
+    inks: string[];
+  }> = [];
 
   if (plan.foldFormat === undefined) {
     // Saddle stitch (padded if needed): the print engine groups placements by side.
-    const placements: Placement[] = placed.map((s) => ({ page: s.page, pieceId: String(s.pieceId) }));
+    const placements: Placement[] = placed.map((s) => ({
+      page: s.page,
+      pieceId: String(s.pieceId),
+    }));
     const pieces = state.pieces.map((p) => ({ id: String(p.id), inks: p.inks }));
-    const engine = planInkPasses({ pages: plan.laidOutPages, placements, pieces, copies, inkOrder: state.pressInks });
+    const engine = planInkPasses({
+      pages: plan.laidOutPages,
+      placements,
+      pieces,
+      copies,
+      inkOrder: state.pressInks,
+    });
     for (const s of engine.sides)
       raw.push({
         sheet: s.sheet,
@@ -63,7 +81,14 @@ export function countPasses(state: MapState, copies = 1): PassCount {
         ids.add(id);
         for (const ink of inksById.get(id) ?? []) inks.add(ink);
       }
-      raw.push({ sheet: side.sheet, side: side.side, key: side.key, pages: side.pages, pieceIds: [...ids].sort((a, b) => a - b), inks: [...inks].sort(byInk) });
+      raw.push({
+        sheet: side.sheet,
+        side: side.side,
+        key: side.key,
+        pages: side.pages,
+        pieceIds: [...ids].sort((a, b) => a - b),
+        inks: [...inks].sort(byInk),
+      });
     }
   }
 
@@ -71,7 +96,11 @@ export function countPasses(state: MapState, copies = 1): PassCount {
   const sidesPerInk: Record<string, number> = {};
   const sides: SidePassCount[] = raw.map((s) => {
     for (const ink of s.inks) sidesPerInk[ink] = (sidesPerInk[ink] ?? 0) + 1;
-    return { ...s, passes: passesForInks(s.inks.length, state.inksPerPass), missingInks: s.inks.filter((i) => !press.has(i)) };
+    return {
+      ...s,
+      passes: passesForInks(s.inks.length, state.inksPerPass),
+      missingInks: s.inks.filter((i) => !press.has(i)),
+    };
   });
   const passesPerCopy = sides.reduce((n, s) => n + s.passes, 0);
   const mastersPerRun = sides.reduce((n, s) => n + s.inks.length, 0);
@@ -81,5 +110,14 @@ export function countPasses(state: MapState, copies = 1): PassCount {
     `so a side needs its distinct inks ÷ ${perPass}, rounded up. ` +
     `Pieces sharing a side share its passes. ${plural(sides.length, "side")}, ${plural(passesPerCopy, "pass", "passes")} per copy` +
     `, ${plural(passesPerCopy * copies, "pass", "passes")} for ${plural(copies, "copy", "copies")}.`;
-  return { inksPerPass: perPass, copies, sides, passesPerCopy, passesPerRun: passesPerCopy * copies, mastersPerRun, sidesPerInk, explanation };
+  return {
+    inksPerPass: perPass,
+    copies,
+    sides,
+    passesPerCopy,
+    passesPerRun: passesPerCopy * copies,
+    mastersPerRun,
+    sidesPerInk,
+    explanation,
+  };
 }

@@ -17,8 +17,23 @@
  */
 import { allSides, sheetSides, sideIndexByPage } from "./layout";
 import { countPasses } from "./passes";
-import { pagesInWords, pieceLength, pieceName, plural, slotIsFree, slotsByPage, unplacedPieces } from "./state";
-import type { MapPiece, MapState, Proposal, ProposeOptions, ProposedPlacement, UnplacedPiece } from "./types";
+import {
+  pagesInWords,
+  pieceLength,
+  pieceName,
+  plural,
+  slotIsFree,
+  slotsByPage,
+  unplacedPieces,
+} from "./state";
+import type {
+  MapPiece,
+  MapState,
+  Proposal,
+  ProposeOptions,
+  ProposedPlacement,
+  UnplacedPiece,
+} from "./types";
 
 interface Item {
   piece: MapPiece;
@@ -55,7 +70,9 @@ class Board {
     if (s < 0) return;
     const before = this.passes(this.distinct[s] ?? 0);
     const base = s * this.nInks;
-    for (const i of inks) if ((this.counts[base + i] = (this.counts[base + i] ?? 0) + 1) === 1) this.distinct[s] = (this.distinct[s] ?? 0) + 1;
+    for (const i of inks)
+      if ((this.counts[base + i] = (this.counts[base + i] ?? 0) + 1) === 1)
+        this.distinct[s] = (this.distinct[s] ?? 0) + 1;
     this.cost += this.passes(this.distinct[s] ?? 0) - before;
   }
   removeInks(page: number, inks: readonly number[]): void {
@@ -63,7 +80,9 @@ class Board {
     if (s < 0) return;
     const before = this.passes(this.distinct[s] ?? 0);
     const base = s * this.nInks;
-    for (const i of inks) if ((this.counts[base + i] = (this.counts[base + i] ?? 0) - 1) === 0) this.distinct[s] = (this.distinct[s] ?? 0) - 1;
+    for (const i of inks)
+      if ((this.counts[base + i] = (this.counts[base + i] ?? 0) - 1) === 0)
+        this.distinct[s] = (this.distinct[s] ?? 0) - 1;
     this.cost += this.passes(this.distinct[s] ?? 0) - before;
   }
   setFree(page: number, free: boolean): void {
@@ -102,10 +121,11 @@ class Board {
   /** Lowest free page on each side, −1 when the side is full. */
   lowestFreeBySide(): Int32Array {
     const out = new Int32Array(this.nSides).fill(-1);
-    for (let p = this.pageCount; p >= 1; p--) if (this.free[p] === 1) {
-      const s = this.sideOf[p] ?? -1;
-      if (s >= 0) out[s] = p;
-    }
+    for (let p = this.pageCount; p >= 1; p--)
+      if (this.free[p] === 1) {
+        const s = this.sideOf[p] ?? -1;
+        if (s >= 0) out[s] = p;
+      }
     return out;
   }
 }
@@ -126,15 +146,26 @@ function multiCandidates(board: Board, item: Item, centreStart: number | null): 
     if (!board.fits(start, item)) continue;
     const before = start - 1 >= 1 && board.free[start - 1] === 1 ? 0 : 1;
     const after = start + item.len <= board.pageCount && board.free[start + item.len] === 1 ? 0 : 1;
-    out.push({ start, delta: board.delta(start, item), centre: centreStart === start ? 0 : 1, snug: -(before + after) });
+    out.push({
+      start,
+      delta: board.delta(start, item),
+      centre: centreStart === start ? 0 : 1,
+      snug: -(before + after),
+    });
   }
-  out.sort((a, b) => a.delta - b.delta || a.centre - b.centre || a.snug - b.snug || a.start - b.start);
+  out.sort(
+    (a, b) => a.delta - b.delta || a.centre - b.centre || a.snug - b.snug || a.start - b.start,
+  );
   return out;
 }
 
 /** Single-page items placed in this order: most inks first, grouped by ink set, then id. */
 function singleOrder(a: Item, b: Item): number {
-  return b.inks.length - a.inks.length || (a.key < b.key ? -1 : a.key > b.key ? 1 : 0) || a.piece.id - b.piece.id;
+  return (
+    b.inks.length - a.inks.length ||
+    (a.key < b.key ? -1 : a.key > b.key ? 1 : 0) ||
+    a.piece.id - b.piece.id
+  );
 }
 
 function multiOrder(a: Item, b: Item): number {
@@ -148,7 +179,13 @@ function multiOrder(a: Item, b: Item): number {
 
 /** Same shape and inks: two such pieces can trade places without changing anything that counts. */
 function sameShape(a: Item | undefined, b: Item | undefined): boolean {
-  return a !== undefined && b !== undefined && a.len === b.len && a.piece.kind === b.piece.kind && a.key === b.key;
+  return (
+    a !== undefined &&
+    b !== undefined &&
+    a.len === b.len &&
+    a.piece.kind === b.piece.kind &&
+    a.key === b.key
+  );
 }
 
 /**
@@ -169,7 +206,8 @@ function canStillFit(board: Board, items: readonly Item[], i: number): boolean {
   }
   if (pages === 0) return true;
   let pairs = 0;
-  for (let p = 2; p + 1 <= board.pageCount; p += 2) if (board.free[p] === 1 && board.free[p + 1] === 1) pairs++;
+  for (let p = 2; p + 1 <= board.pageCount; p += 2)
+    if (board.free[p] === 1 && board.free[p + 1] === 1) pairs++;
   if (pairs < spreads) return false;
   const stretches: number[] = [];
   let stretch = 0;
@@ -224,7 +262,12 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
     for (const ink of [...p.inks].sort()) if (!inkIndex.has(ink)) inkIndex.set(ink, inkIndex.size);
   const itemOf = (piece: MapPiece): Item => {
     const inks = [...new Set(piece.inks)].sort();
-    return { piece, len: pieceLength(piece), inks: inks.map((i) => inkIndex.get(i) ?? 0), key: inks.join("\u0000") };
+    return {
+      piece,
+      len: pieceLength(piece),
+      inks: inks.map((i) => inkIndex.get(i) ?? 0),
+      key: inks.join("\u0000"),
+    };
   };
 
   const board = new Board(n, sideOf, sides.length, Math.max(1, inkIndex.size), perPass);
@@ -247,7 +290,10 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
   notes.push(
     `Kept ${plural(keptPieces, "placed piece")} where ${keptPieces === 1 ? "it is" : "they are"}` +
       (lockedCount ? `, left ${plural(lockedCount, "locked page")} untouched` : "") +
-      ` and filled only free pages (${plural(board.freeOnSide.reduce((a, b) => a + b, 0), "free page")}).`,
+      ` and filled only free pages (${plural(
+        board.freeOnSide.reduce((a, b) => a + b, 0),
+        "free page",
+      )}).`,
   );
 
   const todo = unplacedPieces(state).map(itemOf);
@@ -276,7 +322,10 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
       notes.push(
         `Put the full-bleed spread ${pieceName(item.piece, item.piece.id)} on the centre spread, pages ${centre[0]} and ${centre[1]}, where both halves print side by side on one sheet and need no lining up.`,
       );
-    } else if (item) notes.push(`The centre spread (pages ${centre[0]} and ${centre[1]}) is not free, so the full-bleed spread ${pieceName(item.piece, item.piece.id)} goes where it fits.`);
+    } else if (item)
+      notes.push(
+        `The centre spread (pages ${centre[0]} and ${centre[1]}) is not free, so the full-bleed spread ${pieceName(item.piece, item.piece.id)} goes where it fits.`,
+      );
   }
   const rest = todo.filter((t) => t.piece.id !== fixedId);
   const multis = rest.filter((t) => t.len > 1).sort(multiOrder);
@@ -352,7 +401,9 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
   for (const t of singles) groupSize.set(t.key, (groupSize.get(t.key) ?? 0) + 1);
   const orders: Item[][] = [
     singles,
-    [...singles].sort((x, y) => (groupSize.get(y.key) ?? 0) - (groupSize.get(x.key) ?? 0) || singleOrder(x, y)),
+    [...singles].sort(
+      (x, y) => (groupSize.get(y.key) ?? 0) - (groupSize.get(x.key) ?? 0) || singleOrder(x, y),
+    ),
   ];
   const greedySingles = (order: readonly Item[]): Item[] => {
     const dropped: Item[] = [];
@@ -364,7 +415,11 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
         if (page < 1) continue;
         const delta = board.delta(page, item);
         const left = (board.freeOnSide[s] ?? 0) - 1;
-        if (!best || delta < best.delta || (delta === best.delta && (left < best.left || (left === best.left && page < best.page))))
+        if (
+          !best ||
+          delta < best.delta ||
+          (delta === best.delta && (left < best.left || (left === best.left && page < best.page)))
+        )
           best = { page, delta, left };
       }
       if (best) put(item, best.page);
@@ -383,7 +438,10 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
         const startDelta = board.delta(start, item);
         let bestStart = start;
         let bestDelta = startDelta;
-        const starts = item.len === 1 ? [...board.lowestFreeBySide()].filter((p) => p >= 1) : multiCandidates(board, item, centreStart).map((c) => c.start);
+        const starts =
+          item.len === 1
+            ? [...board.lowestFreeBySide()].filter((p) => p >= 1)
+            : multiCandidates(board, item, centreStart).map((c) => c.start);
         for (const st of starts) {
           const d = board.delta(st, item);
           if (d < bestDelta) {
@@ -420,27 +478,46 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
       if (!improved) break;
     }
   };
-  let bestTry: { snap: Map<number, number>; cost: number; greedy: number; dropped: Item[]; order: number } | null = null;
+  let bestTry: {
+    snap: Map<number, number>;
+    cost: number;
+    greedy: number;
+    dropped: Item[];
+    order: number;
+  } | null = null;
   orders.forEach((order, o) => {
     if (o > 0 && singles.length < 2) return;
     restore(afterMulti);
     const dropped = greedySingles(order);
     const greedy = board.cost;
     improve();
-    if (!bestTry || board.cost < bestTry.cost) bestTry = { snap: new Map(chosen), cost: board.cost, greedy, dropped, order: o };
+    if (!bestTry || board.cost < bestTry.cost)
+      bestTry = { snap: new Map(chosen), cost: board.cost, greedy, dropped, order: o };
   });
-  const tried = bestTry as { snap: Map<number, number>; cost: number; greedy: number; dropped: Item[]; order: number } | null;
+  const tried = bestTry as {
+    snap: Map<number, number>;
+    cost: number;
+    greedy: number;
+    dropped: Item[];
+    order: number;
+  } | null;
   if (tried) {
     restore(tried.snap);
     for (const item of tried.dropped)
-      unplaced.push({ pieceId: item.piece.id, reason: `No free page is left: ${plural(freeAfterMulti, "free page")} for ${plural(singles.length, "single page")}.` });
+      unplaced.push({
+        pieceId: item.piece.id,
+        reason: `No free page is left: ${plural(freeAfterMulti, "free page")} for ${plural(singles.length, "single page")}.`,
+      });
     if (singles.length > tried.dropped.length)
       notes.push(
         tried.order === 0
           ? `Placed single pages with the most inks first and grouped pages with the same inks on the same sheet sides.`
           : `Placed single pages largest ink group first, keeping pages with the same inks on the same sheet sides.`,
       );
-    if (tried.cost < tried.greedy) notes.push(`Moving and swapping proposed pieces saved ${plural(tried.greedy - tried.cost, "pass", "passes")} per copy.`);
+    if (tried.cost < tried.greedy)
+      notes.push(
+        `Moving and swapping proposed pieces saved ${plural(tried.greedy - tried.cost, "pass", "passes")} per copy.`,
+      );
   }
 
   // 4. Small maps: branch and bound over every arrangement for a strictly cheaper one.
@@ -449,10 +526,19 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
   const freeNow = board.freeOnSide.reduce((a, b) => a + b, 0);
   const needed = all.reduce((a, t) => a + t.len, 0);
   const exactLimit = options.exactSearchMaxFreePages ?? 40;
-  const freeAtStart = freeNow + all.filter((t) => chosen.has(t.piece.id)).reduce((a, t) => a + t.len, 0);
+  const freeAtStart =
+    freeNow + all.filter((t) => chosen.has(t.piece.id)).reduce((a, t) => a + t.len, 0);
   if (budget > 0 && freeAtStart > exactLimit && all.length > 0)
-    notes.push(`With ${freeAtStart} free pages the map is too large to search every arrangement; this is the best arrangement found.`);
-  if (budget > 0 && freeAtStart <= exactLimit && all.length > 0 && (allPlaced || needed <= freeNow + all.filter((t) => chosen.has(t.piece.id)).reduce((a, t) => a + t.len, 0))) {
+    notes.push(
+      `With ${freeAtStart} free pages the map is too large to search every arrangement; this is the best arrangement found.`,
+    );
+  if (
+    budget > 0 &&
+    freeAtStart <= exactLimit &&
+    all.length > 0 &&
+    (allPlaced ||
+      needed <= freeNow + all.filter((t) => chosen.has(t.piece.id)).reduce((a, t) => a + t.len, 0))
+  ) {
     const snapshot = new Map(chosen);
     const heuristicCost = board.cost;
     for (const t of all) take(t);
@@ -473,7 +559,9 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
       let extra = 0;
       for (const ink of suffixInks[i] ?? []) {
         let present = false;
-        for (let sd = 0; sd < board.nSides && !present; sd++) if ((board.freeOnSide[sd] ?? 0) > 0 && (board.counts[sd * board.nInks + ink] ?? 0) > 0) present = true;
+        for (let sd = 0; sd < board.nSides && !present; sd++)
+          if ((board.freeOnSide[sd] ?? 0) > 0 && (board.counts[sd * board.nInks + ink] ?? 0) > 0)
+            present = true;
         if (!present) extra++;
       }
       return extra;
@@ -493,7 +581,8 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
       if (item.len > 1) {
         if (!canStillFit(board, all, i)) return;
         const prevItem = all[i - 1];
-        const after = sameShape(prevItem, item) && prevItem ? (chosen.get(prevItem.piece.id) ?? 0) : 0;
+        const after =
+          sameShape(prevItem, item) && prevItem ? (chosen.get(prevItem.piece.id) ?? 0) : 0;
         for (const c of multiCandidates(board, item, centreStart)) {
           if (c.start <= after || board.cost + c.delta >= bestCost) continue;
           put(item, c.start);
@@ -504,7 +593,8 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
         return;
       }
       const prev = all[i - 1];
-      const minSide = prev && prev.len === 1 && prev.key === item.key ? (groupSide.get(item.key) ?? 0) : 0;
+      const minSide =
+        prev && prev.len === 1 && prev.key === item.key ? (groupSide.get(item.key) ?? 0) : 0;
       const lowest = board.lowestFreeBySide();
       const options: Array<{ page: number; side: number; delta: number }> = [];
       for (let s = minSide; s < lowest.length; s++) {
@@ -533,20 +623,38 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
     }
     if (found) {
       // The exhaustive search placed everything; earlier "no room" reasons no longer hold.
-      for (let i = unplaced.length - 1; i >= 0; i--) if (chosen.has(unplaced[i]?.pieceId ?? -1)) unplaced.splice(i, 1);
+      for (let i = unplaced.length - 1; i >= 0; i--)
+        if (chosen.has(unplaced[i]?.pieceId ?? -1)) unplaced.splice(i, 1);
       notes.push(
         allPlaced
           ? `A full search of the arrangements found one ${plural(heuristicCost - board.cost, "pass", "passes")} cheaper per copy, and used it.`
           : `A full search of the arrangements found room for every piece.`,
       );
-    } else if (!exhausted) notes.push(`A full search of the arrangements found nothing cheaper: this is the fewest passes possible around what is already placed.`);
-    else notes.push(`The search of every arrangement stopped at its limit of ${budget} steps; this is the best arrangement found.`);
+    } else if (!exhausted)
+      notes.push(
+        `A full search of the arrangements found nothing cheaper: this is the fewest passes possible around what is already placed.`,
+      );
+    else
+      notes.push(
+        `The search of every arrangement stopped at its limit of ${budget} steps; this is the best arrangement found.`,
+      );
   }
 
   // Result.
-  const slots = Array.from({ length: n }, (_, i) => ({ ...(byPage[i + 1] ?? { page: i + 1, reservation: null, pieceId: null, piecePageIndex: null, locked: false }) }));
+  const slots = Array.from({ length: n }, (_, i) => ({
+    ...(byPage[i + 1] ?? {
+      page: i + 1,
+      reservation: null,
+      pieceId: null,
+      piecePageIndex: null,
+      locked: false,
+    }),
+  }));
   const placed: ProposedPlacement[] = [];
-  for (const t of [...all, ...(fixedId !== null ? todo.filter((x) => x.piece.id === fixedId) : [])].sort((a, b) => a.piece.id - b.piece.id)) {
+  for (const t of [
+    ...all,
+    ...(fixedId !== null ? todo.filter((x) => x.piece.id === fixedId) : []),
+  ].sort((a, b) => a.piece.id - b.piece.id)) {
     const start = chosen.get(t.piece.id);
     if (start === undefined) continue;
     const pages = Array.from({ length: t.len }, (_, i) => start + i);
@@ -564,15 +672,21 @@ export function proposePlacement(state: MapState, options: ProposeOptions = {}):
   const after = countPasses(next, copies);
   notes.push(
     `Placed ${plural(placed.length, "piece")}` +
-      (unplaced.length ? `; ${plural(unplaced.length, "piece")} did not fit (${unplaced.map((u) => pieceName(pieceById.get(u.pieceId), u.pieceId)).join(", ")})` : "") +
+      (unplaced.length
+        ? `; ${plural(unplaced.length, "piece")} did not fit (${unplaced.map((u) => pieceName(pieceById.get(u.pieceId), u.pieceId)).join(", ")})`
+        : "") +
       `. Drum passes per copy: ${passesBefore} before, ${after.passesPerCopy} after` +
       (copies !== 1 ? ` (${after.passesPerRun} for ${copies} copies)` : "") +
       `; a side needs its distinct inks ÷ ${perPass} per pass, rounded up.`,
   );
-  for (const p of placed.filter((x) => x.pages.length > 1 && pieceById.get(x.pieceId)?.kind === "spread")) {
+  for (const p of placed.filter(
+    (x) => x.pages.length > 1 && pieceById.get(x.pieceId)?.kind === "spread",
+  )) {
     const [l, r] = p.pages;
     if (l !== undefined && r !== undefined && centre && l !== centre[0])
-      notes.push(`${pieceName(pieceById.get(p.pieceId), p.pieceId)} on ${pagesInWords(p.pages)} crosses two sheets; its halves must line up when folded.`);
+      notes.push(
+        `${pieceName(pieceById.get(p.pieceId), p.pieceId)} on ${pagesInWords(p.pages)} crosses two sheets; its halves must line up when folded.`,
+      );
   }
   return { state: next, passesBefore, passesAfter: after.passesPerCopy, placed, unplaced, notes };
 }

@@ -22,12 +22,15 @@ export function emptyMap(init: Omit<MapState, "slots"> & { slots?: MapSlot[] }):
 /** Slots indexed by page (index 0 unused); when a page appears twice the first wins. */
 export function slotsByPage(state: MapState): Array<MapSlot | undefined> {
   const out: Array<MapSlot | undefined> = new Array(state.pageCount + 1);
-  for (const s of state.slots) if (s.page >= 1 && s.page <= state.pageCount && out[s.page] === undefined) out[s.page] = s;
+  for (const s of state.slots)
+    if (s.page >= 1 && s.page <= state.pageCount && out[s.page] === undefined) out[s.page] = s;
   return out;
 }
 
 /** Where each piece sits: piece id → [{page, index}] sorted by page. */
-export function piecePages(state: MapState): Map<number, Array<{ page: number; index: number | null }>> {
+export function piecePages(
+  state: MapState,
+): Map<number, Array<{ page: number; index: number | null }>> {
   const out = new Map<number, Array<{ page: number; index: number | null }>>();
   for (const s of state.slots) {
     if (s.pieceId === null) continue;
@@ -46,7 +49,9 @@ export function slotIsFree(slot: MapSlot | undefined): boolean {
 
 /** Pieces that are neither placed nor left out, by id. */
 export function unplacedPieces(state: MapState): MapPiece[] {
-  const placed = new Set(state.slots.map((s) => s.pieceId).filter((id): id is number => id !== null));
+  const placed = new Set(
+    state.slots.map((s) => s.pieceId).filter((id): id is number => id !== null),
+  );
   return state.pieces.filter((p) => !p.leftOut && !placed.has(p.id)).sort((a, b) => a.id - b.id);
 }
 

@@ -15,7 +15,12 @@ const EDITOR_MOVES: Record<PieceStatus, readonly PieceStatus[]> = {
 };
 
 /** Statuses from which the contributor may still withdraw their piece. */
-const WITHDRAWABLE: readonly PieceStatus[] = ["awaiting-review", "fix-requested", "shortlisted", "accepted"];
+const WITHDRAWABLE: readonly PieceStatus[] = [
+  "awaiting-review",
+  "fix-requested",
+  "shortlisted",
+  "accepted",
+];
 
 export type Mover = "editor" | "contributor";
 
@@ -42,4 +47,9 @@ export function mayUploadFiles(current: PieceStatus, callOpen: boolean): boolean
 }
 
 /** Status changes the contributor is told about by e-mail. */
-export const STATUSES_THAT_EMAIL: readonly PieceStatus[] = ["fix-requested", "shortlisted", "accepted", "declined"];
+export const STATUSES_THAT_EMAIL: readonly PieceStatus[] = [
+  "fix-requested",
+  "shortlisted",
+  "accepted",
+  "declined",
+];

@@ -14,7 +14,13 @@ export const newPasswordSchema = z
   .refine((p) => /[A-Za-z]/.test(p) && /\d/.test(p), "Mix letters and at least one digit")
   .refine((p) => !COMMON_PASSWORDS.has(p.toLowerCase()), "That password is too easy to guess");
 
-const COMMON_PASSWORDS = new Set(["password123", "password1234", "qwerty12345", "1234567890a", "letmein1234"]);
+const COMMON_PASSWORDS = new Set([
+  "password123",
+  "password1234",
+  "qwerty12345",
+  "1234567890a",
+  "letmein1234",
+]);
 
 export const signUpSchema = z.object({
   name: z.string().trim().min(1, "Tell us your name").max(120, "Keep it under 120 characters"),

@@ -20,12 +20,19 @@ export const TRIM_CHOICES = [
 ] as const;
 export type TrimChoice = (typeof TRIM_CHOICES)[number];
 
-const optionalNumber = z.preprocess((v) => (v === "" || v === null ? undefined : v), z.coerce.number().optional());
+const optionalNumber = z.preprocess(
+  (v) => (v === "" || v === null ? undefined : v),
+  z.coerce.number().optional(),
+);
 
 /** What the new-anthology form sends and the route handler accepts; lengths in the chosen unit. */
 export const anthologyInputSchema = z
   .object({
-    title: z.string().trim().min(2, "Give the anthology a title").max(200, "Keep the title under 200 characters"),
+    title: z
+      .string()
+      .trim()
+      .min(2, "Give the anthology a title")
+      .max(200, "Keep the title under 200 characters"),
     pressName: z.string().trim().max(200).optional().default(""),
     summary: z.string().trim().max(2000).optional().default(""),
     trimChoice: z.enum(TRIM_CHOICES, { error: "Choose a trim size" }),
@@ -33,17 +40,36 @@ export const anthologyInputSchema = z
     unit: z.enum(["mm", "in"]).default("mm"),
     customWidth: optionalNumber,
     customHeight: optionalNumber,
-    bleed: z.coerce.number({ error: "Bleed must be a number" }).min(0, "Bleed cannot be negative").max(25, "Bleed over 25 mm is unusual: check the unit"),
-    safeMargin: z.coerce.number({ error: "Safe margin must be a number" }).min(0, "Safe margin cannot be negative").max(50),
+    bleed: z.coerce
+      .number({ error: "Bleed must be a number" })
+      .min(0, "Bleed cannot be negative")
+      .max(25, "Bleed over 25 mm is unusual: check the unit"),
+    safeMargin: z.coerce
+      .number({ error: "Safe margin must be a number" })
+      .min(0, "Safe margin cannot be negative")
+      .max(50),
     binding: z.enum(BINDINGS),
-    pageCountTarget: z.coerce.number().int("Whole pages only").min(4, "At least 4 pages").max(400, "At most 400 pages"),
+    pageCountTarget: z.coerce
+      .number()
+      .int("Whole pages only")
+      .min(4, "At least 4 pages")
+      .max(400, "At most 400 pages"),
     maxPages: z.coerce.number().int("Whole pages only").min(4).max(400, "At most 400 pages"),
     coverStock: z.enum(COVER_STOCKS),
     coverPaperGsm: optionalNumber.pipe(z.number().int().min(60).max(500).optional()),
-    paperGsm: z.coerce.number().int("Whole grams only").min(35, "Paper under 35 gsm is tissue").max(400, "Over 400 gsm is board"),
-    paperCaliperMm: optionalNumber.pipe(z.number().min(0.03, "Caliper under 0.03 mm: check the unit").max(1).optional()),
+    paperGsm: z.coerce
+      .number()
+      .int("Whole grams only")
+      .min(35, "Paper under 35 gsm is tissue")
+      .max(400, "Over 400 gsm is board"),
+    paperCaliperMm: optionalNumber.pipe(
+      z.number().min(0.03, "Caliper under 0.03 mm: check the unit").max(1).optional(),
+    ),
     printMethod: z.enum(PRINT_METHODS),
-    inks: z.array(z.string().trim().min(1).max(40)).min(1, "Name at least one ink").max(8, "At most 8 inks"),
+    inks: z
+      .array(z.string().trim().min(1).max(40))
+      .min(1, "Name at least one ink")
+      .max(8, "At most 8 inks"),
     inksPerPass: z.coerce.number().int().min(1).max(8).default(1),
     minPpi: z.coerce.number().int().min(72, "Below 72 ppi nothing prints well").max(2400),
   })
@@ -69,10 +95,18 @@ export const anthologyInputSchema = z
       });
     }
     if (v.pageCountTarget > v.maxPages) {
-      ctx.addIssue({ code: "custom", path: ["maxPages"], message: "The most pages must be at least the page count" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["maxPages"],
+        message: "The most pages must be at least the page count",
+      });
     }
     if (v.coverStock === "separate" && v.coverPaperGsm === undefined) {
-      ctx.addIssue({ code: "custom", path: ["coverPaperGsm"], message: "Give the cover stock's weight in gsm" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["coverPaperGsm"],
+        message: "Give the cover stock's weight in gsm",
+      });
     }
     if (new Set(v.inks.map((i) => i.toLowerCase())).size !== v.inks.length) {
       ctx.addIssue({ code: "custom", path: ["inks"], message: "Each ink once" });
@@ -131,6 +165,10 @@ export function slugify(title: string): string {
 }
 
 export const inviteSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.org")),
+  email: z
+    .string()
+    .trim()
+    .toLowerCase()
+    .pipe(z.email("Enter an e-mail address like name@example.org")),
   role: z.enum(["lead", "editor", "finisher", "contributor"], { error: "Choose a role" }),
 });

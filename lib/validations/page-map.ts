@@ -1,7 +1,11 @@
 import { z } from "zod";
 import { SLOT_RESERVATIONS } from "@/lib/domain";
 
-const page = z.number({ error: "Give a page number" }).int("Whole page numbers only").min(1, "Pages start at 1").max(1000);
+const page = z
+  .number({ error: "Give a page number" })
+  .int("Whole page numbers only")
+  .min(1, "Pages start at 1")
+  .max(1000);
 const pieceId = z.number({ error: "Choose a piece" }).int().positive();
 
 /** One edit of the page map, as the map screen sends it and the route handler accepts it. */
@@ -36,7 +40,11 @@ export const mapChangeRequestSchema = z.object({
 export type MapChangeRequest = z.infer<typeof mapChangeRequestSchema>;
 
 export const COPIES_DEFAULT = 100;
-export const copiesSchema = z.coerce.number().int().min(1, "At least one copy").max(100_000, "At most 100 000 copies");
+export const copiesSchema = z.coerce
+  .number()
+  .int()
+  .min(1, "At least one copy")
+  .max(100_000, "At most 100 000 copies");
 
 export const proposalRequestSchema = z.object({
   version: z.number().int().min(0),

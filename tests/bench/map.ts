@@ -20,10 +20,20 @@ function pieces(count: number, spreadEvery: number): MapPiece[] {
 }
 
 function state(pageCount: number, list: MapPiece[]): MapState {
-  return emptyMap({ binding: "saddle-stitch", pageCount, maxPages: pageCount, inksPerPass: 1, pressInks: ["black", "teal", "red"], pieces: list });
+  return emptyMap({
+    binding: "saddle-stitch",
+    pageCount,
+    maxPages: pageCount,
+    inksPerPass: 1,
+    pressInks: ["black", "teal", "red"],
+    pieces: list,
+  });
 }
 
-function median(runs: number, fn: () => unknown): { medianMs: number; minMs: number; maxMs: number; runs: number } {
+function median(
+  runs: number,
+  fn: () => unknown,
+): { medianMs: number; minMs: number; maxMs: number; runs: number } {
   const samples: number[] = [];
   for (let i = 0; i < runs; i++) {
     const t = performance.now();
@@ -32,7 +42,12 @@ function median(runs: number, fn: () => unknown): { medianMs: number; minMs: num
   }
   samples.sort((a, b) => a - b);
   const r = (v: number) => Math.round(v * 100) / 100;
-  return { runs, medianMs: r(samples[Math.floor(runs / 2)] ?? 0), minMs: r(samples[0] ?? 0), maxMs: r(samples[runs - 1] ?? 0) };
+  return {
+    runs,
+    medianMs: r(samples[Math.floor(runs / 2)] ?? 0),
+    minMs: r(samples[0] ?? 0),
+    maxMs: r(samples[runs - 1] ?? 0),
+  };
 }
 
 function one(pageCount: number, list: MapPiece[], runs: number) {
@@ -45,7 +60,8 @@ function one(pageCount: number, list: MapPiece[], runs: number) {
     placed: proposal.placed.length,
     unplaced: proposal.unplaced.length,
     passesPerCopy: proposal.passesAfter,
-    otherErrors: checkMap(proposal.state).errors.filter((e) => e.code !== "piece-not-placed").length,
+    otherErrors: checkMap(proposal.state).errors.filter((e) => e.code !== "piece-not-placed")
+      .length,
     ...timing,
   };
 }
@@ -55,7 +71,13 @@ export function benchMap() {
   const big = one(96, pieces(200, 5), 9);
   const fits = one(96, pieces(90, 0), 9);
   const mixed = one(96, pieces(60, 4), 9);
-  return { proposal200into96Ms: big.medianMs, proposal200into96: big, proposal90SinglesInto96: fits, proposal60MixedInto96: mixed };
+  return {
+    proposal200into96Ms: big.medianMs,
+    proposal200into96: big,
+    proposal90SinglesInto96: fits,
+    proposal60MixedInto96: mixed,
+  };
 }
 
-if (process.argv[1] && import.meta.url.endsWith(process.argv[1].split("/").pop() ?? "\u0000")) console.log(JSON.stringify(benchMap(), null, 2));
+if (process.argv[1] && import.meta.url.endsWith(process.argv[1].split("/").pop() ?? "\u0000"))
+  console.log(JSON.stringify(benchMap(), null, 2));

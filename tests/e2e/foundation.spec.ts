@@ -43,7 +43,10 @@ test("a wrong password says so without signing in", async ({ page }) => {
   await expect(page.getByTestId("sign-in-error")).toContainText("do not match");
 });
 
-test("sign in by an e-mail link read from the mail sink; the link works once", async ({ page, browser }) => {
+test("sign in by an e-mail link read from the mail sink; the link works once", async ({
+  page,
+  browser,
+}) => {
   const email = uniqueEmail("linnea");
   await page.goto("/sign-in");
   await page.locator("#link-email").fill(email);
@@ -110,7 +113,10 @@ test("an unknown anthology is a 404 page", async ({ page }) => {
   await expect(page.getByTestId("not-found")).toBeVisible();
 });
 
-test("API: 401 without a session, 400 for bad JSON and schema failures, 404 for unknown anthologies", async ({ request, page }) => {
+test("API: 401 without a session, 400 for bad JSON and schema failures, 404 for unknown anthologies", async ({
+  request,
+  page,
+}) => {
   const anonymous = await request.get("/api/anthologies");
   expect(anonymous.status()).toBe(401);
   expect(await anonymous.json()).toEqual({ error: "Sign in first." });
@@ -118,7 +124,10 @@ test("API: 401 without a session, 400 for bad JSON and schema failures, 404 for 
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   const api = page.request;
-  const notJson = await api.post("/api/anthologies", { data: Buffer.from("{not json"), headers: { "content-type": "application/json" } });
+  const notJson = await api.post("/api/anthologies", {
+    data: Buffer.from("{not json"),
+    headers: { "content-type": "application/json" },
+  });
   expect(notJson.status()).toBe(400);
   expect((await notJson.json()).error).toContain("not valid JSON");
 
@@ -130,7 +139,10 @@ test("API: 401 without a session, 400 for bad JSON and schema failures, 404 for 
   expect((await api.get("/api/anthologies/no-such-anthology")).status()).toBe(404);
 });
 
-test("an editor invites a person by e-mail; they join with that role", async ({ page, browser }) => {
+test("an editor invites a person by e-mail; they join with that role", async ({
+  page,
+  browser,
+}) => {
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   await page.goto("/studio/heron-street-comics-jam/members");

@@ -1,7 +1,13 @@
 import { expect, test, type Locator, type Page } from "@playwright/test";
 import type mysql from "mysql2/promise";
 import { demoAccount } from "../helpers/demo";
-import { connect, createAnthology, createPerson, createPiece, type FixturePerson } from "../helpers/review-fixtures";
+import {
+  connect,
+  createAnthology,
+  createPerson,
+  createPiece,
+  type FixturePerson,
+} from "../helpers/review-fixtures";
 import { signInWithPassword } from "./helpers";
 
 // A fresh 16-page anthology led by the demo lead, with accepted pieces of its own, so the test
@@ -18,10 +24,15 @@ test.use({ viewport: { width: 1400, height: 1500 } });
 test.beforeAll(async () => {
   conn = await connect();
   const lead = demoAccount("odile");
-  const [rows] = await conn.query<mysql.RowDataPacket[]>("SELECT id FROM user WHERE email = ?", [lead.email]);
+  const [rows] = await conn.query<mysql.RowDataPacket[]>("SELECT id FROM user WHERE email = ?", [
+    lead.email,
+  ]);
   const leadId = rows[0]?.id as string | undefined;
   if (!leadId) throw new Error("the demo lead is not seeded");
-  const [finishers] = await conn.query<mysql.RowDataPacket[]>("SELECT id FROM user WHERE email = ?", [demoAccount("cass").email]);
+  const [finishers] = await conn.query<mysql.RowDataPacket[]>(
+    "SELECT id FROM user WHERE email = ?",
+    [demoAccount("cass").email],
+  );
   const finisherId = finishers[0]?.id as string | undefined;
   if (!finisherId) throw new Error("the demo finisher is not seeded");
   artist = await createPerson(conn, `Rosalind Quay ${tag}`, "rosalind");
@@ -30,11 +41,33 @@ test.beforeAll(async () => {
     { userId: artist.id, role: "contributor" },
     { userId: finisherId, role: "finisher" },
   ]);
-  const accepted = { contributorId: artist.id, status: "accepted" as const, verdict: "pass" as const };
-  ids.drift = await createPiece(conn, anthology.id, { ...accepted, title: `Driftwood ${tag}`, inks: ["black"] });
-  ids.kelp = await createPiece(conn, anthology.id, { ...accepted, title: `Kelp ${tag}`, inks: ["teal"] });
-  ids.tide = await createPiece(conn, anthology.id, { ...accepted, title: `Tide Spread ${tag}`, kind: "spread", pageCount: 2, inks: ["teal"] });
-  ids.gull = await createPiece(conn, anthology.id, { ...accepted, title: `Gull ${tag}`, inks: ["black", "teal"] });
+  const accepted = {
+    contributorId: artist.id,
+    status: "accepted" as const,
+    verdict: "pass" as const,
+  };
+  ids.drift = await createPiece(conn, anthology.id, {
+    ...accepted,
+    title: `Driftwood ${tag}`,
+    inks: ["black"],
+  });
+  ids.kelp = await createPiece(conn, anthology.id, {
+    ...accepted,
+    title: `Kelp ${tag}`,
+    inks: ["teal"],
+  });
+  ids.tide = await createPiece(conn, anthology.id, {
+    ...accepted,
+    title: `Tide Spread ${tag}`,
+    kind: "spread",
+    pageCount: 2,
+    inks: ["teal"],
+  });
+  ids.gull = await createPiece(conn, anthology.id, {
+    ...accepted,
+    title: `Gull ${tag}`,
+    inks: ["black", "teal"],
+  });
 });
 
 test.afterAll(async () => {
@@ -56,7 +89,9 @@ async function dragTo(page: Page, source: Locator, target: Locator) {
   await page.mouse.up();
 }
 
-test("the lead places pieces by drag and by keyboard, sees the rules, and accepts a proposal", async ({ page }) => {
+test("the lead places pieces by drag and by keyboard, sees the rules, and accepts a proposal", async ({
+  page,
+}) => {
   test.slow(); // one long walk through the screen: sign-in, three placements, a refusal, a proposal
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
@@ -66,7 +101,9 @@ test("the lead places pieces by drag and by keyboard, sees the rules, and accept
   await expect(screen).toHaveAttribute("data-version", "0");
   await expect(page.getByTestId("slot-1")).toHaveAttribute("data-reservation", "cover");
   await expect(page.getByTestId("slot-16")).toHaveAttribute("data-reservation", "cover");
-  await expect(page.locator('[data-testid="rule-message"][data-code="piece-not-placed"]')).toHaveCount(4);
+  await expect(
+    page.locator('[data-testid="rule-message"][data-code="piece-not-placed"]'),
+  ).toHaveCount(4);
 
   // By drag: Driftwood onto page 4.
   await dragTo(page, page.getByTestId(`tray-piece-${ids.drift}`), page.getByTestId("slot-4"));
@@ -96,7 +133,9 @@ test("the lead places pieces by drag and by keyboard, sees the rules, and accept
   await dragTo(page, page.getByTestId(`tray-piece-${ids.tide}`), page.getByTestId("slot-8"));
   await expect(feedback).toHaveAttribute("data-tone", "info");
   await expect(page.getByTestId("slot-9")).toHaveAttribute("data-piece", String(ids.tide));
-  await expect(page.locator('[data-testid="rule-message"][data-code="piece-not-placed"]')).toHaveCount(1);
+  await expect(
+    page.locator('[data-testid="rule-message"][data-code="piece-not-placed"]'),
+  ).toHaveCount(1);
   await expect(screen).toHaveAttribute("data-version", "3");
 
   // The sheet view counts passes; the proposal places what is left, and accepting it changes the count.

@@ -7,7 +7,9 @@ import { assertTestDatabase, testEnv } from "../helpers/env";
 import { uniqueEmail } from "../helpers/demo";
 import { waitForMessage, listMessages } from "../helpers/outbox";
 
-const authState = vi.hoisted(() => ({ session: null as null | { user: { id: string; name: string; email: string } } }));
+const authState = vi.hoisted(() => ({
+  session: null as null | { user: { id: string; name: string; email: string } },
+}));
 vi.mock("@/auth", () => ({ auth: async () => authState.session }));
 
 const { db, pool, schema } = await import("@/db");
@@ -23,11 +25,18 @@ assertTestDatabase();
 
 let slug = "";
 let anthologyId = 0;
-const people: Record<"lead" | "finisher" | "contributor" | "outsider" | "artistA" | "artistB", Person> = {} as never;
+const people: Record<
+  "lead" | "finisher" | "contributor" | "outsider" | "artistA" | "artistB",
+  Person
+> = {} as never;
 const piece: Record<"moths" | "kelp" | "heron" | "dunes" | "gulls", number> = {} as never;
 
 async function makePerson(label: string): Promise<Person> {
-  const person = { id: crypto.randomUUID(), name: `Map ${label}`, email: uniqueEmail(`map-${label}`) };
+  const person = {
+    id: crypto.randomUUID(),
+    name: `Map ${label}`,
+    email: uniqueEmail(`map-${label}`),
+  };
   await db.insert(schema.users).values(person);
   return person;
 }
@@ -46,7 +55,11 @@ async function getMap(): Promise<{ status: number; body: Json }> {
 
 async function change(version: number, body: Json): Promise<{ status: number; body: Json }> {
   const response = await mapRoute.POST(
-    new Request(url(), { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ version, change: body }) }),
+    new Request(url(), {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ version, change: body }),
+    }),
     ctx(),
   );
   return { status: response.status, body: (await response.json()) as Json };
@@ -54,27 +67,58 @@ async function change(version: number, body: Json): Promise<{ status: number; bo
 
 async function slotRows() {
   return db
-    .select({ page: schema.pageSlots.pageNumber, pieceId: schema.pageSlots.pieceId, index: schema.pageSlots.piecePageIndex, reservation: schema.pageSlots.reservation })
+    .select({
+      page: schema.pageSlots.pageNumber,
+      pieceId: schema.pageSlots.pieceId,
+      index: schema.pageSlots.piecePageIndex,
+      reservation: schema.pageSlots.reservation,
+    })
     .from(schema.pageSlots)
     .where(eq(schema.pageSlots.anthologyId, anthologyId))
     .orderBy(schema.pageSlots.pageNumber);
 }
 
 async function storedVersion(): Promise<number> {
-  const [row] = await db.select({ v: schema.anthologies.mapVersion }).from(schema.anthologies).where(eq(schema.anthologies.id, anthologyId));
+  const [row] = await db
+    .select({ v: schema.anthologies.mapVersion })
+    .from(schema.anthologies)
+    .where(eq(schema.anthologies.id, anthologyId));
   return row!.v;
 }
 
-async function addPiece(owner: Person, title: string, kind: "single" | "spread" | "run", pageCount: number, inks: string[]) {
+async function addPiece(
+  owner: Person,
+  title: string,
+  kind: "single" | "spread" | "run",
+  pageCount: number,
+  inks: string[],
+) {
   const [row] = await db
     .insert(schema.pieces)
-    .values({ anthologyId, contributorId: owner.id, title, kind, pageCount, inks, creditLine: owner.name, status: "accepted" })
+    .values({
+      anthologyId,
+      contributorId: owner.id,
+      title,
+      kind,
+      pageCount,
+      inks,
+      creditLine: owner.name,
+      status: "accepted",
+    })
     .$returningId();
   return row!.id;
 }
 
 beforeAll(async () => {
-  for (const label of ["lead", "finisher", "contributor", "outsider", "artistA", "artistB"] as const) people[label] = await makePerson(label);
+  for (const label of [
+    "lead",
+    "finisher",
+    "contributor",
+    "outsider",
+    "artistA",
+    "artistB",
+  ] as const)
+    people[label] = await makePerson(label);
   const anthology = await createAnthology(
     people.lead.id,
     {
@@ -125,8 +169,10 @@ beforeAll(async () => {
 
 afterAll(async () => {
   // The anthology takes its slots, history, pieces and memberships with it.
-  if (anthologyId) await db.delete(schema.anthologies).where(eq(schema.anthologies.id, anthologyId));
-  for (const person of Object.values(people)) await db.delete(schema.users).where(eq(schema.users.id, person.id));
+  if (anthologyId)
+    await db.delete(schema.anthologies).where(eq(schema.anthologies.id, anthologyId));
+  for (const person of Object.values(people))
+    await db.delete(schema.users).where(eq(schema.users.id, person.id));
   await pool.end();
 });
 
@@ -168,8 +214,12 @@ describe("the map", () => {
     expect(rows.map((r) => r.page)).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
     expect(rows.filter((r) => r.reservation === "cover").map((r) => r.page)).toEqual([1, 8]);
     // Only accepted pieces reach the map; every one is waiting, so the check says so.
-    expect((body.state.pieces as Json[]).map((p) => p.id).sort()).toEqual(Object.values(piece).sort());
-    expect((body.check.errors as Json[]).filter((m) => m.code === "piece-not-placed")).toHaveLength(5);
+    expect((body.state.pieces as Json[]).map((p) => p.id).sort()).toEqual(
+      Object.values(piece).sort(),
+    );
+    expect((body.check.errors as Json[]).filter((m) => m.code === "piece-not-placed")).toHaveLength(
+      5,
+    );
     expect(body.passes.passesPerCopy).toBe(0);
     expect(body.creepMm).toHaveLength(2);
   });
@@ -211,7 +261,11 @@ describe("the map", () => {
     expect(await storedVersion()).toBe(4);
 
     const events = await db
-      .select({ action: schema.mapEvents.action, actor: schema.mapEvents.actorId, version: schema.mapEvents.mapVersion })
+      .select({
+        action: schema.mapEvents.action,
+        actor: schema.mapEvents.actorId,
+        version: schema.mapEvents.mapVersion,
+      })
       .from(schema.mapEvents)
       .where(eq(schema.mapEvents.anthologyId, anthologyId))
       .orderBy(schema.mapEvents.id);
@@ -222,7 +276,9 @@ describe("the map", () => {
       { action: "remove", actor: people.lead.id, version: 4 },
     ]);
     const { body } = await getMap();
-    expect((body.events as Json[])[0]?.summary).toMatch(/Took “Moths at the Porch Light” off page 3/);
+    expect((body.events as Json[])[0]?.summary).toMatch(
+      /Took “Moths at the Porch Light” off page 3/,
+    );
   });
 
   it("lets exactly one of two changes made against the same version through; the other gets 409 and the fresh map", async () => {
@@ -238,7 +294,9 @@ describe("the map", () => {
     const winner = first.status === 200 ? first : second;
     expect(loser.body.error).toMatch(/Someone else changed the map/);
     expect(loser.body.map.version).toBe(version + 1);
-    expect(loser.body.map.state.slots.find((s: Json) => s.page === 6).pieceId).toBe(winner === first ? piece.heron : piece.dunes);
+    expect(loser.body.map.state.slots.find((s: Json) => s.page === 6).pieceId).toBe(
+      winner === first ? piece.heron : piece.dunes,
+    );
     const onSix = (await slotRows()).filter((r) => r.page === 6);
     expect(onSix).toHaveLength(1);
     expect([piece.heron, piece.dunes]).toContain(onSix[0]!.pieceId);
@@ -246,7 +304,12 @@ describe("the map", () => {
     const [count] = await db
       .select({ n: sql<number>`count(*)` })
       .from(schema.mapEvents)
-      .where(and(eq(schema.mapEvents.anthologyId, anthologyId), eq(schema.mapEvents.mapVersion, version + 1)));
+      .where(
+        and(
+          eq(schema.mapEvents.anthologyId, anthologyId),
+          eq(schema.mapEvents.mapVersion, version + 1),
+        ),
+      );
     expect(Number(count!.n)).toBe(1);
     // Clean up for the next tests: take whichever piece won off again.
     const off = await change(version + 1, { op: "remove", pieceId: onSix[0]!.pieceId! });
@@ -264,7 +327,10 @@ describe("the map", () => {
     // The spread on 4–5 moved back by four pages, still a left–right pair.
     expect(rows.filter((r) => r.pieceId === piece.kelp).map((r) => r.page)).toEqual([8, 9]);
     expect(rows.filter((r) => r.reservation === "cover").map((r) => r.page)).toEqual([1, 12]);
-    const [target] = await db.select({ n: schema.anthologies.pageCountTarget }).from(schema.anthologies).where(eq(schema.anthologies.id, anthologyId));
+    const [target] = await db
+      .select({ n: schema.anthologies.pageCountTarget })
+      .from(schema.anthologies)
+      .where(eq(schema.anthologies.id, anthologyId));
     expect(target!.n).toBe(12);
     version++;
 
@@ -289,13 +355,19 @@ describe("the map", () => {
 
     const shrunk = await change(version, { op: "resize", delta: -4, atPage: 2 });
     expect(shrunk.status).toBe(200);
-    expect((await slotRows()).filter((r) => r.pieceId === piece.kelp).map((r) => r.page)).toEqual([4, 5]);
+    expect((await slotRows()).filter((r) => r.pieceId === piece.kelp).map((r) => r.page)).toEqual([
+      4, 5,
+    ]);
   });
 
   it("answers 400 with field messages for a malformed change", async () => {
     as(people.lead);
     const response = await mapRoute.POST(
-      new Request(url(), { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ version: 0, change: { op: "place" } }) }),
+      new Request(url(), {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ version: 0, change: { op: "place" } }),
+      }),
       ctx(),
     );
     expect(response.status).toBe(400);
@@ -309,7 +381,11 @@ describe("the automatic proposal", () => {
     const version = await storedVersion();
     const before = await slotRows();
     const response = await proposalRoute.POST(
-      new Request(url("/proposal"), { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ version, copies: 50 }) }),
+      new Request(url("/proposal"), {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ version, copies: 50 }),
+      }),
       ctx(),
     );
     expect(response.status).toBe(200);
@@ -321,12 +397,19 @@ describe("the automatic proposal", () => {
     expect(await storedVersion()).toBe(version);
 
     const stale = await proposalRoute.POST(
-      new Request(url("/proposal"), { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ version: version - 1 }) }),
+      new Request(url("/proposal"), {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ version: version - 1 }),
+      }),
       ctx(),
     );
     expect(stale.status).toBe(409);
 
-    const accepted = await change(version, { op: "apply-proposal", placements: answer.proposal.placed });
+    const accepted = await change(version, {
+      op: "apply-proposal",
+      placements: answer.proposal.placed,
+    });
     expect(accepted.status).toBe(200);
     expect(accepted.body.version).toBe(version + 1);
     const rows = await slotRows();
@@ -335,7 +418,15 @@ describe("the automatic proposal", () => {
     }
     const pagesUsed = rows.filter((r) => r.pieceId !== null).map((r) => r.page);
     expect(new Set(pagesUsed).size).toBe(pagesUsed.length);
-    const events = await db.select({ action: schema.mapEvents.action }).from(schema.mapEvents).where(and(eq(schema.mapEvents.anthologyId, anthologyId), eq(schema.mapEvents.mapVersion, version + 1)));
+    const events = await db
+      .select({ action: schema.mapEvents.action })
+      .from(schema.mapEvents)
+      .where(
+        and(
+          eq(schema.mapEvents.anthologyId, anthologyId),
+          eq(schema.mapEvents.mapVersion, version + 1),
+        ),
+      );
     expect(events).toEqual([{ action: "apply-proposal" }]);
   });
 });
@@ -343,7 +434,10 @@ describe("the automatic proposal", () => {
 describe("page notices", () => {
   it("e-mails each contributor with placed pieces their pages once, and not again for the same pages", async () => {
     as(people.finisher);
-    const forbidden = await noticesRoute.POST(new Request(url("/notices"), { method: "POST" }), ctx());
+    const forbidden = await noticesRoute.POST(
+      new Request(url("/notices"), { method: "POST" }),
+      ctx(),
+    );
     expect(forbidden.status).toBe(403);
 
     as(people.lead);
@@ -352,16 +446,28 @@ describe("page notices", () => {
       .select({ id: schema.pieces.id, owner: schema.pieces.contributorId })
       .from(schema.pieces)
       .where(eq(schema.pieces.anthologyId, anthologyId));
-    const placedOwners = new Set(rows.filter((r) => r.pieceId !== null).map((r) => owners.find((o) => o.id === r.pieceId)!.owner));
+    const placedOwners = new Set(
+      rows
+        .filter((r) => r.pieceId !== null)
+        .map((r) => owners.find((o) => o.id === r.pieceId)!.owner),
+    );
     expect(placedOwners.size).toBeGreaterThan(0);
 
     const first = await noticesRoute.POST(new Request(url("/notices"), { method: "POST" }), ctx());
     expect(first.status).toBe(200);
     const firstBody = (await first.json()) as Json;
-    expect(firstBody).toMatchObject({ sent: placedOwners.size, alreadySent: 0, failed: 0, contributors: placedOwners.size });
+    expect(firstBody).toMatchObject({
+      sent: placedOwners.size,
+      alreadySent: 0,
+      failed: 0,
+      contributors: placedOwners.size,
+    });
 
     const kelpOwner = people.artistB;
-    const message = await waitForMessage({ to: kelpOwner.email, subject: /Your pages in Map Test Quarterly/ });
+    const message = await waitForMessage({
+      to: kelpOwner.email,
+      subject: /Your pages in Map Test Quarterly/,
+    });
     expect(message.text).toContain("Kelp Forest");
     expect(message.text).toContain("pages 4 and 5");
 

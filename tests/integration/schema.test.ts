@@ -41,7 +41,10 @@ describe("schema round-trips on MariaDB", () => {
   it("keeps an anthology's spec exactly: doubles, JSON ink lists, defaults", async () => {
     const lead = await makeUser("lead");
     const created = await createAnthology(lead, spec, `round-trip-${run}`);
-    const [row] = await db.select().from(schema.anthologies).where(eq(schema.anthologies.id, created.id));
+    const [row] = await db
+      .select()
+      .from(schema.anthologies)
+      .where(eq(schema.anthologies.id, created.id));
     expect(row).toBeDefined();
     // NBS Circular 572: 1 in = 25.4 mm exactly → half letter is 139.7 x 215.9 mm, 1/8 in = 3.175 mm
     // A double survives the round trip bit for bit (8.5 x 25.4 is 215.89999999999998 in binary floating point).
@@ -70,7 +73,11 @@ describe("schema round-trips on MariaDB", () => {
   it("refuses a second membership for the same person and anthology", async () => {
     const lead = await makeUser("dup");
     const anthology = await createAnthology(lead, spec, `dup-member-${run}`);
-    await expect(db.insert(schema.memberships).values({ anthologyId: anthology.id, userId: lead, role: "editor" })).rejects.toThrow();
+    await expect(
+      db
+        .insert(schema.memberships)
+        .values({ anthologyId: anthology.id, userId: lead, role: "editor" }),
+    ).rejects.toThrow();
     expect(await findRole(anthology.id, lead)).toBe("lead");
   });
 
@@ -79,11 +86,25 @@ describe("schema round-trips on MariaDB", () => {
     const anthology = await createAnthology(lead, spec, `files-${run}`);
     const [piece] = await db
       .insert(schema.pieces)
-      .values({ anthologyId: anthology.id, contributorId: lead, title: "Kelp Study", kind: "single", pageCount: 1, inks: ["teal"], creditLine: "K. Tester" })
+      .values({
+        anthologyId: anthology.id,
+        contributorId: lead,
+        title: "Kelp Study",
+        kind: "single",
+        pageCount: 1,
+        inks: ["teal"],
+        creditLine: "K. Tester",
+      })
       .$returningId();
-    const [page] = await db.insert(schema.piecePages).values({ pieceId: piece!.id, pageIndex: 1 }).$returningId();
+    const [page] = await db
+      .insert(schema.piecePages)
+      .values({ pieceId: piece!.id, pageIndex: 1 })
+      .$returningId();
     const thumbnail = Buffer.from([0x52, 0x49, 0x46, 0x46, 0, 1, 2, 3, 255, 254]);
-    const report = { verdict: "warning", findings: [{ code: "no-bleed", severity: "warning", message: "ünïcode ✓" }] };
+    const report = {
+      verdict: "warning",
+      findings: [{ code: "no-bleed", severity: "warning", message: "ünïcode ✓" }],
+    };
     const [version] = await db
       .insert(schema.fileVersions)
       .values({
@@ -99,7 +120,10 @@ describe("schema round-trips on MariaDB", () => {
         uploadedBy: lead,
       })
       .$returningId();
-    const [stored] = await db.select().from(schema.fileVersions).where(eq(schema.fileVersions.id, version!.id));
+    const [stored] = await db
+      .select()
+      .from(schema.fileVersions)
+      .where(eq(schema.fileVersions.id, version!.id));
     expect(stored!.report).toEqual(report);
     expect(Buffer.compare(stored!.thumbnailWebp!, thumbnail)).toBe(0);
     expect(stored!.sizeBytes).toBe(5_000_000_000);
@@ -112,8 +136,18 @@ describe("schema round-trips on MariaDB", () => {
     const lead = await makeUser("money");
     const anthology = await createAnthology(lead, spec, `money-${run}`);
     const soldOn = new Date("2026-11-14T18:30:00.000Z");
-    await db.insert(schema.sales).values({ anthologyId: anthology.id, label: "Harbour fair", copies: 40, grossCents: 4_294_967_301, costsCents: 1999, soldOn });
-    const [sale] = await db.select().from(schema.sales).where(eq(schema.sales.anthologyId, anthology.id));
+    await db.insert(schema.sales).values({
+      anthologyId: anthology.id,
+      label: "Harbour fair",
+      copies: 40,
+      grossCents: 4_294_967_301,
+      costsCents: 1999,
+      soldOn,
+    });
+    const [sale] = await db
+      .select()
+      .from(schema.sales)
+      .where(eq(schema.sales.anthologyId, anthology.id));
     expect(sale!.grossCents).toBe(4_294_967_301);
     expect(Number.isInteger(sale!.costsCents)).toBe(true);
     expect(sale!.soldOn.toISOString()).toBe("2026-11-14T18:30:00.000Z");

@@ -18,10 +18,13 @@ const base = {
   minPpi: 300,
 };
 
-const parse = (patch: Record<string, unknown>) => anthologyInputSchema.safeParse({ ...base, ...patch });
+const parse = (patch: Record<string, unknown>) =>
+  anthologyInputSchema.safeParse({ ...base, ...patch });
 const messages = (patch: Record<string, unknown>) => {
   const result = parse(patch);
-  return result.success ? {} : Object.fromEntries(result.error.issues.map((i) => [i.path.join("."), i.message]));
+  return result.success
+    ? {}
+    : Object.fromEntries(result.error.issues.map((i) => [i.path.join("."), i.message]));
 };
 
 describe("anthology spec input", () => {
@@ -38,7 +41,13 @@ describe("anthology spec input", () => {
   });
 
   it("takes A5 from ISO 216 and turns it for landscape", () => {
-    const result = parse({ trimChoice: "a5", orientation: "landscape", unit: "mm", bleed: 3, safeMargin: 5 });
+    const result = parse({
+      trimChoice: "a5",
+      orientation: "landscape",
+      unit: "mm",
+      bleed: 3,
+      safeMargin: 5,
+    });
     const spec = anthologySpecFromInput(result.data!);
     // ISO 216: A5 = 148 x 210 mm
     expect([spec.trimWidthMm, spec.trimHeightMm]).toEqual([210, 148]);
@@ -53,25 +62,34 @@ describe("anthology spec input", () => {
   });
 
   it("asks for the size of a custom trim", () => {
-    expect(messages({ trimChoice: "custom" })).toMatchObject({ customWidth: "Enter the custom size", customHeight: "Enter the custom size" });
+    expect(messages({ trimChoice: "custom" })).toMatchObject({
+      customWidth: "Enter the custom size",
+      customHeight: "Enter the custom size",
+    });
   });
 
   it("wants a multiple of 4 pages for saddle stitch, suggesting the neighbours", () => {
     // A sheet folded once carries 4 pages (common practice, no source).
-    expect(messages({ pageCountTarget: 22 }).pageCountTarget).toBe("A saddle-stitched booklet has a multiple of 4 pages: try 20 or 24");
+    expect(messages({ pageCountTarget: 22 }).pageCountTarget).toBe(
+      "A saddle-stitched booklet has a multiple of 4 pages: try 20 or 24",
+    );
     expect(parse({ binding: "fold-only", pageCountTarget: 6, maxPages: 8 }).success).toBe(true);
   });
 
   it("refuses more pages than the binding allows, and a separate cover without its weight", () => {
     expect(messages({ pageCountTarget: 52 }).maxPages).toBeDefined();
-    expect(messages({ coverStock: "separate" }).coverPaperGsm).toBe("Give the cover stock's weight in gsm");
+    expect(messages({ coverStock: "separate" }).coverPaperGsm).toBe(
+      "Give the cover stock's weight in gsm",
+    );
   });
 
   it("estimates the caliper from the weight when none is given", () => {
     const spec = anthologySpecFromInput(parse({}).data!);
     expect(spec.paperCaliperMm).toBeGreaterThan(0.05);
     expect(spec.paperCaliperMm).toBeLessThan(0.2);
-    expect(anthologySpecFromInput(parse({ paperCaliperMm: 0.104 }).data!).paperCaliperMm).toBe(0.104);
+    expect(anthologySpecFromInput(parse({ paperCaliperMm: 0.104 }).data!).paperCaliperMm).toBe(
+      0.104,
+    );
   });
 
   it("refuses duplicate inks and an empty ink list", () => {

@@ -12,7 +12,11 @@ describe("parseEnv", () => {
   });
 
   it("coerces numbers and keeps given values", () => {
-    const env = parseEnv({ SMTP_PORT: "2525", DATABASE_URL: "mysql://a:b@db.example:3306/x", MAX_IMAGE_MEGAPIXELS: "50" });
+    const env = parseEnv({
+      SMTP_PORT: "2525",
+      DATABASE_URL: "mysql://a:b@db.example:3306/x",
+      MAX_IMAGE_MEGAPIXELS: "50",
+    });
     expect(env.SMTP_PORT).toBe(2525);
     expect(env.DATABASE_URL).toBe("mysql://a:b@db.example:3306/x");
     expect(env.MAX_IMAGE_MEGAPIXELS).toBe(50);

@@ -4,7 +4,12 @@ import { describe, expect, it } from "vitest";
 import { checkMap } from "@/lib/map/check";
 import { emptyMap } from "@/lib/map/state";
 import type { MapState } from "@/lib/map/types";
-import { applyChange, checkedChange, describeChange, newBlockingErrors } from "@/lib/map-edits/apply";
+import {
+  applyChange,
+  checkedChange,
+  describeChange,
+  newBlockingErrors,
+} from "@/lib/map-edits/apply";
 
 function booklet(): MapState {
   const state = emptyMap({
@@ -31,7 +36,10 @@ describe("checkedChange", () => {
     if (!result.ok) return;
     expect(result.changedPages).toEqual([2]);
     expect(result.summary).toBe("Placed “Moths” on page 2.");
-    expect(result.check.errors.map((m) => m.code)).toEqual(["piece-not-placed", "piece-not-placed"]);
+    expect(result.check.errors.map((m) => m.code)).toEqual([
+      "piece-not-placed",
+      "piece-not-placed",
+    ]);
   });
 
   it("refuses a spread starting on a right-hand (odd) page, in the engine's words", () => {
@@ -65,7 +73,9 @@ describe("newBlockingErrors", () => {
     const broken = checkMap(state);
     expect(broken.errors.some((m) => m.code === "piece-page-placed-twice")).toBe(true);
     expect(newBlockingErrors(broken, broken)).toEqual([]);
-    expect(newBlockingErrors(checkMap(booklet()), broken).map((m) => m.code)).toContain("piece-page-placed-twice");
+    expect(newBlockingErrors(checkMap(booklet()), broken).map((m) => m.code)).toContain(
+      "piece-page-placed-twice",
+    );
   });
 });
 
@@ -83,19 +93,30 @@ describe("applying a proposal", () => {
     expect(result.ok).toBe(true);
     if (!result.ok) return;
     expect(result.changedPages).toEqual([4, 5, 6]);
-    expect(result.state.slots.filter((s) => s.pieceId !== null).map((s) => [s.page, s.pieceId])).toEqual([
+    expect(
+      result.state.slots.filter((s) => s.pieceId !== null).map((s) => [s.page, s.pieceId]),
+    ).toEqual([
       [2, 1],
       [4, 2],
       [5, 2],
       [6, 3],
     ]);
-    expect(describeChange(placed.state, result.state, { op: "apply-proposal", placements: [{ pieceId: 2, pages: [4, 5] }, { pieceId: 3, pages: [6] }] })).toBe(
-      "Accepted a proposal placing 2 pieces.",
-    );
+    expect(
+      describeChange(placed.state, result.state, {
+        op: "apply-proposal",
+        placements: [
+          { pieceId: 2, pages: [4, 5] },
+          { pieceId: 3, pages: [6] },
+        ],
+      }),
+    ).toBe("Accepted a proposal placing 2 pieces.");
   });
 
   it("refuses a proposal whose pages no longer fit the map", () => {
-    const result = applyChange(booklet(), { op: "apply-proposal", placements: [{ pieceId: 3, pages: [1] }] });
+    const result = applyChange(booklet(), {
+      op: "apply-proposal",
+      placements: [{ pieceId: 3, pages: [1] }],
+    });
     expect(result.ok).toBe(false);
   });
 });

@@ -13,22 +13,40 @@ export type FormResult = { error?: string; fields?: Record<string, string[]> } |
 
 /** Only same-site paths are followed after sign-in. */
 function safeReturn(callbackUrl: unknown): string {
-  return typeof callbackUrl === "string" && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/studio";
+  return typeof callbackUrl === "string" &&
+    callbackUrl.startsWith("/") &&
+    !callbackUrl.startsWith("//")
+    ? callbackUrl
+    : "/studio";
 }
 
 export async function signUpAction(input: unknown, callbackUrl?: string): Promise<FormResult> {
   const parsed = signUpSchema.safeParse(input);
   if (!parsed.success) return { fields: fieldErrors(parsed.error) };
   const { name, email, password } = parsed.data;
-  const [existing] = await db.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, email)).limit(1);
+  const [existing] = await db
+    .select({ id: schema.users.id })
+    .from(schema.users)
+    .where(eq(schema.users.email, email))
+    .limit(1);
   if (existing) {
-    return { fields: { email: ["An account with this e-mail already exists. Sign in instead, or ask for a sign-in link."] } };
+    return {
+      fields: {
+        email: [
+          "An account with this e-mail already exists. Sign in instead, or ask for a sign-in link.",
+        ],
+      },
+    };
   }
   try {
-    await db.insert(schema.users).values({ name, email, passwordHash: await hashPassword(password) });
+    await db
+      .insert(schema.users)
+      .values({ name, email, passwordHash: await hashPassword(password) });
   } catch (error) {
     if (String(error).includes("Duplicate entry")) {
-      return { fields: { email: ["An account with this e-mail already exists. Sign in instead."] } };
+      return {
+        fields: { email: ["An account with this e-mail already exists. Sign in instead."] },
+      };
     }
     throw error;
   }
@@ -36,13 +54,17 @@ export async function signUpAction(input: unknown, callbackUrl?: string): Promis
   redirect(safeReturn(callbackUrl));
 }
 
-export async function passwordSignInAction(input: unknown, callbackUrl?: string): Promise<FormResult> {
+export async function passwordSignInAction(
+  input: unknown,
+  callbackUrl?: string,
+): Promise<FormResult> {
   const parsed = signInSchema.safeParse(input);
   if (!parsed.success) return { fields: fieldErrors(parsed.error) };
   try {
     await signIn("credentials", { ...parsed.data, redirect: false });
   } catch (error) {
-    if (error instanceof AuthError) return { error: "That e-mail and password do not match an account." };
+    if (error instanceof AuthError)
+      return { error: "That e-mail and password do not match an account." };
     throw error;
   }
   redirect(safeReturn(callbackUrl));
@@ -52,9 +74,14 @@ export async function emailLinkAction(input: unknown, callbackUrl?: string): Pro
   const parsed = emailLinkSchema.safeParse(input);
   if (!parsed.success) return { fields: fieldErrors(parsed.error) };
   try {
-    await signIn("nodemailer", { email: parsed.data.email, redirect: false, redirectTo: safeReturn(callbackUrl) });
+    await signIn("nodemailer", {
+      email: parsed.data.email,
+      redirect: false,
+      redirectTo: safeReturn(callbackUrl),
+    });
   } catch (error) {
-    if (error instanceof AuthError) return { error: "We could not send the link just now. Try again in a minute." };
+    if (error instanceof AuthError)
+      return { error: "We could not send the link just now. Try again in a minute." };
     throw error;
   }
   redirect(`/sign-in/check-email?email=${encodeURIComponent(parsed.data.email)}`);

@@ -15,17 +15,23 @@ export default async function StudioHome() {
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
           <h1 className="text-3xl font-extrabold">Your anthologies</h1>
-          <p className="text-ink-soft">Hello{user.name ? `, ${user.name}` : ""}. Everything you edit, finish or contribute to.</p>
+          <p className="text-ink-soft">
+            Hello{user.name ? `, ${user.name}` : ""}. Everything you edit, finish or contribute to.
+          </p>
         </div>
         <Link href="/studio/new" className={linkButtonClass("accent")}>
           New anthology
         </Link>
       </div>
       {anthologies.length === 0 ? (
-        <div className="rounded-lg border border-dashed border-ink/30 p-8 text-center" data-testid="empty-studio">
+        <div
+          className="rounded-lg border border-dashed border-ink/30 p-8 text-center"
+          data-testid="empty-studio"
+        >
           <p className="font-semibold">No anthologies yet.</p>
           <p className="mt-2 text-sm text-ink-soft">
-            Start one of your own, or answer an open call: when an editor accepts your work or invites you, it shows up here.
+            Start one of your own, or answer an open call: when an editor accepts your work or
+            invites you, it shows up here.
           </p>
         </div>
       ) : (
@@ -40,7 +46,10 @@ export default async function StudioHome() {
               <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
                 {mine.map((a) => (
                   <li key={a.id}>
-                    <Link href={`/studio/${a.slug}`} className="block rounded-lg border border-ink/10 bg-white/60 p-4 no-underline hover:border-teal">
+                    <Link
+                      href={`/studio/${a.slug}`}
+                      className="block rounded-lg border border-ink/10 bg-white/60 p-4 no-underline hover:border-teal"
+                    >
                       <p className="font-display text-lg font-semibold">{a.title}</p>
                       {a.pressName ? <p className="text-sm text-ink-soft">{a.pressName}</p> : null}
                       <p className="mt-2 font-mono text-xs text-ink-faint">

@@ -22,5 +22,8 @@ export const POST = apiRoute(async (request) => {
     },
     slugify(input.title),
   );
-  return Response.json({ anthology: { id: anthology.id, slug: anthology.slug, title: anthology.title } }, { status: 201 });
+  return Response.json(
+    { anthology: { id: anthology.id, slug: anthology.slug, title: anthology.title } },
+    { status: 201 },
+  );
 });

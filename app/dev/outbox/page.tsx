@@ -4,7 +4,14 @@ import { env } from "@/lib/env";
 export const dynamic = "force-dynamic";
 export const metadata = { title: "Outbox (local mail sink)" };
 
-type SinkMessage = { id: string; from: string; to: string[]; subject: string; text: string; date: string };
+type SinkMessage = {
+  id: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  date: string;
+};
 
 /** Every message the local SMTP sink caught. Exists only while the sink is configured (OUTBOX_URL). */
 export default async function OutboxPage() {
@@ -23,16 +30,22 @@ export default async function OutboxPage() {
       <div>
         <h1 className="text-3xl font-extrabold">Outbox</h1>
         <p className="text-ink-soft">
-          Mail Quireline sent while running locally, caught by the SMTP sink instead of being delivered. Newest first.
+          Mail Quireline sent while running locally, caught by the SMTP sink instead of being
+          delivered. Newest first.
         </p>
       </div>
       {problem ? <p className="text-persimmon-dark">{problem}</p> : null}
       {messages.length === 0 && !problem ? <p data-testid="outbox-empty">No mail yet.</p> : null}
       <ul className="flex flex-col gap-4">
         {messages.map((m) => (
-          <li key={m.id} className="rounded-lg border border-ink/10 bg-white/60 p-4" data-testid="outbox-message">
+          <li
+            key={m.id}
+            className="rounded-lg border border-ink/10 bg-white/60 p-4"
+            data-testid="outbox-message"
+          >
             <p className="text-xs text-ink-faint">
-              {new Date(m.date).toISOString().replace("T", " ").slice(0, 19)} UTC · to {m.to.join(", ")}
+              {new Date(m.date).toISOString().replace("T", " ").slice(0, 19)} UTC · to{" "}
+              {m.to.join(", ")}
             </p>
             <p className="font-semibold">{m.subject}</p>
             <pre className="mt-2 whitespace-pre-wrap break-words font-mono text-xs">{m.text}</pre>

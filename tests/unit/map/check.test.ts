@@ -13,18 +13,26 @@ describe("page count for the binding", () => {
   });
 
   it("13 → 16 with 3 blanks; 17 → 20 with 3 blanks (REFERENCE §6.1)", () => {
-    expect(checkMap(map(13, [])).errors.find((e) => e.code === "page-count-not-multiple-of-4")?.pages).toEqual([14, 15, 16]);
-    expect(checkMap(map(17, [])).errors.find((e) => e.code === "page-count-not-multiple-of-4")?.pages).toEqual([18, 19, 20]);
+    expect(
+      checkMap(map(13, [])).errors.find((e) => e.code === "page-count-not-multiple-of-4")?.pages,
+    ).toEqual([14, 15, 16]);
+    expect(
+      checkMap(map(17, [])).errors.find((e) => e.code === "page-count-not-multiple-of-4")?.pages,
+    ).toEqual([18, 19, 20]);
     expect(codes(checkMap(map(16, [])).errors)).toEqual([]);
   });
 
   it("fold-only takes 4, 6 or 8 pages (common practice, no source)", () => {
     expect(codes(checkMap(map(6, [], { binding: "fold-only" })).errors)).toEqual([]);
-    expect(codes(checkMap(map(12, [], { binding: "fold-only" })).errors)).toEqual(["fold-only-page-count"]);
+    expect(codes(checkMap(map(12, [], { binding: "fold-only" })).errors)).toEqual([
+      "fold-only-page-count",
+    ]);
   });
 
   it("over the page limit names the pages to take out", () => {
-    const m = checkMap(map(24, [], { maxPages: 20 })).errors.find((e) => e.code === "over-max-pages");
+    const m = checkMap(map(24, [], { maxPages: 20 })).errors.find(
+      (e) => e.code === "over-max-pages",
+    );
     expect(m?.pages).toEqual([21, 22, 23, 24]);
     expect(m?.message).toContain("more than the 20");
   });
@@ -67,7 +75,10 @@ describe("where pieces sit", () => {
   });
 
   it("a piece page placed twice, and a reserved page holding a piece, are errors", () => {
-    const twice = withPlaced(map(8, [single(1, ["black"])]), [[1, [2]], [1, [6]]]);
+    const twice = withPlaced(map(8, [single(1, ["black"])]), [
+      [1, [2]],
+      [1, [6]],
+    ]);
     const m = checkMap(twice).errors.find((e) => e.code === "piece-page-placed-twice");
     expect(m?.pages).toEqual([2, 6]);
     const state = withPlaced(map(8, [single(1, ["black"])]), [[1, [2]]]);
@@ -76,7 +87,11 @@ describe("where pieces sit", () => {
   });
 
   it("every accepted piece is placed or left out; a partial placement names the missing pages", () => {
-    const pieces = [single(1, ["black"]), single(2, ["black"], { leftOut: true }), run(3, 3, ["teal"])];
+    const pieces = [
+      single(1, ["black"]),
+      single(2, ["black"], { leftOut: true }),
+      run(3, 3, ["teal"]),
+    ];
     const state = withPlaced(map(8, pieces), [[3, [2, 3]]]);
     const check = checkMap(state);
     expect(check.errors.find((e) => e.code === "piece-not-placed")?.pieceIds).toEqual([1]);
@@ -86,37 +101,57 @@ describe("where pieces sit", () => {
   });
 
   it("unknown pieces and bad page indexes are errors", () => {
-    const state = withPlaced(map(8, [single(1, ["black"])]), [[1, [1]], [99, [2]]]);
+    const state = withPlaced(map(8, [single(1, ["black"])]), [
+      [1, [1]],
+      [99, [2]],
+    ]);
     state.slots[0]!.piecePageIndex = 2;
-    expect(codes(checkMap(state).errors).sort()).toEqual(["piece-not-placed", "piece-page-index-invalid", "unknown-piece"].sort());
+    expect(codes(checkMap(state).errors).sort()).toEqual(
+      ["piece-not-placed", "piece-page-index-invalid", "unknown-piece"].sort(),
+    );
   });
 });
 
 describe("ink warnings", () => {
   it("a side with 2 inks on a one-ink duplicator needs 2 passes and says so (REFERENCE §9 duplicator: one run per colour)", () => {
     // 8 pages: sheet 1 front is 8|1 (REFERENCE §6.3).
-    const state = withPlaced(map(8, [single(1, ["black"]), single(2, ["teal"])]), [[1, [1]], [2, [8]]]);
+    const state = withPlaced(map(8, [single(1, ["black"]), single(2, ["teal"])]), [
+      [1, [1]],
+      [2, [8]],
+    ]);
     const w = checkMap(state).warnings.find((x) => x.code === "side-needs-several-passes");
     expect(w?.pages).toEqual([1, 8]);
     expect(w?.pieceIds).toEqual([1, 2]);
     expect(w?.message).toContain("Sheet 1 front (pages 8 and 1) carries black and teal");
     expect(w?.message).toContain("2 times (2 inks ÷ 1, rounded up)");
     // A press laying 2 inks per pass needs one pass: no warning.
-    expect(codes(checkMap({ ...state, inksPerPass: 2 }).warnings)).not.toContain("side-needs-several-passes");
+    expect(codes(checkMap({ ...state, inksPerPass: 2 }).warnings)).not.toContain(
+      "side-needs-several-passes",
+    );
   });
 
   it("inks the press lacks, and more inks than it has, are flagged", () => {
-    const state = withPlaced(map(8, [single(1, ["black", "gold"]), single(2, ["teal"])], { pressInks: ["black", "teal"] }), [[1, [1]], [2, [8]]]);
+    const state = withPlaced(
+      map(8, [single(1, ["black", "gold"]), single(2, ["teal"])], { pressInks: ["black", "teal"] }),
+      [
+        [1, [1]],
+        [2, [8]],
+      ],
+    );
     const w = checkMap(state).warnings;
     expect(w.find((x) => x.code === "ink-not-on-press")?.message).toContain("needs gold");
-    expect(w.find((x) => x.code === "side-over-press-inks")?.message).toContain("3 inks (black, teal and gold) but the press has only 2 inks");
+    expect(w.find((x) => x.code === "side-over-press-inks")?.message).toContain(
+      "3 inks (black, teal and gold) but the press has only 2 inks",
+    );
   });
 
   it("errors come before warnings and ok follows errors", () => {
     const state = withPlaced(map(10, [single(1, ["black"])]), [[1, [1]]]);
     const check = checkMap(state);
     expect(check.messages[0]?.severity).toBe("error");
-    expect(check.messages.findIndex((m) => m.severity === "warning")).toBeGreaterThan(check.messages.findLastIndex((m) => m.severity === "error"));
+    expect(check.messages.findIndex((m) => m.severity === "warning")).toBeGreaterThan(
+      check.messages.findLastIndex((m) => m.severity === "error"),
+    );
     expect(check.ok).toBe(false);
   });
 });

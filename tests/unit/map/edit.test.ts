@@ -1,5 +1,13 @@
 import { describe, expect, it } from "vitest";
-import { checkMap, lockSlot, movePiece, placePiece, removePiece, resizeMap, setReservation } from "@/lib/map";
+import {
+  checkMap,
+  lockSlot,
+  movePiece,
+  placePiece,
+  removePiece,
+  resizeMap,
+  setReservation,
+} from "@/lib/map";
 import type { EditResult, MapState } from "@/lib/map";
 import { map, run, single, spread } from "./fixtures";
 
@@ -11,7 +19,12 @@ function pieceOn(state: MapState): Array<number | null> {
   return state.slots.map((s) => s.pieceId);
 }
 
-const pieces = [single(1, ["black"]), spread(2, ["teal"]), run(3, 3, ["red"]), single(4, ["black"], { leftOut: true })];
+const pieces = [
+  single(1, ["black"]),
+  spread(2, ["teal"]),
+  run(3, 3, ["red"]),
+  single(4, ["black"], { leftOut: true }),
+];
 
 describe("placing pieces", () => {
   it("a single takes one page; a spread an even page and the next; a run consecutive pages in order", () => {
@@ -29,7 +42,11 @@ describe("placing pieces", () => {
     const odd = placePiece(s, 2, 3);
     expect(odd.ok ? null : odd.code).toBe("spread-must-start-on-even-page");
     const taken = placePiece(s, 2, 4);
-    expect(taken.ok ? null : [taken.code, taken.pages, taken.reason]).toEqual(["slot-taken", [5], "Page 5 already holds “Piece 1”."]);
+    expect(taken.ok ? null : [taken.code, taken.pages, taken.reason]).toEqual([
+      "slot-taken",
+      [5],
+      "Page 5 already holds “Piece 1”.",
+    ]);
     const reserved = ok(setReservation(s, 2, "contents"));
     const r = placePiece(reserved, 2, 2);
     expect(r.ok ? null : r.code).toBe("slot-reserved");
@@ -90,11 +107,15 @@ describe("resizing by one sheet", () => {
 
   it("refuses to add past the page limit, inside a piece, or anything but ±4", () => {
     const s = ok(placePiece(map(8, pieces, { maxPages: 8 }), 2, 4));
-    expect((resizeMap(s, { delta: 4, atPage: 1 }) as { code?: string }).code).toBe("resize-over-max-pages");
+    expect((resizeMap(s, { delta: 4, atPage: 1 }) as { code?: string }).code).toBe(
+      "resize-over-max-pages",
+    );
     const roomy = { ...s, maxPages: 40 };
     const split = resizeMap(roomy, { delta: 4, atPage: 5 });
     expect(split.ok ? null : [split.code, split.pieceIds]).toEqual(["resize-splits-piece", [2]]);
-    expect((resizeMap(roomy, { delta: 2 as 4, atPage: 1 }) as { code?: string }).code).toBe("resize-not-a-sheet");
+    expect((resizeMap(roomy, { delta: 2 as 4, atPage: 1 }) as { code?: string }).code).toBe(
+      "resize-not-a-sheet",
+    );
   });
 
   it("refuses a removal that drops placed pieces, naming them, unless forced; forced, the whole piece leaves", () => {
@@ -114,11 +135,24 @@ describe("resizing by one sheet", () => {
     expect(pieceOn(next)).toEqual([null, null, null, null, null, null, 1, null]);
     expect(forced.ok && forced.droppedPieceIds).toEqual([3]);
     // Removing empty pages needs no force.
-    expect(ok(resizeMap(s, { delta: -4, atPage: 7 })).slots.map((x) => x.pieceId)).toEqual([null, null, null, 3, 3, 3, 1, null]);
+    expect(ok(resizeMap(s, { delta: -4, atPage: 7 })).slots.map((x) => x.pieceId)).toEqual([
+      null,
+      null,
+      null,
+      3,
+      3,
+      3,
+      1,
+      null,
+    ]);
   });
 
   it("refuses to shrink below 4 pages and ranges past the end", () => {
-    expect((resizeMap(map(4, []), { delta: -4, atPage: 1 }) as { code?: string }).code).toBe("resize-too-small");
-    expect((resizeMap(map(8, []), { delta: -4, atPage: 6 }) as { code?: string }).code).toBe("page-out-of-range");
+    expect((resizeMap(map(4, []), { delta: -4, atPage: 1 }) as { code?: string }).code).toBe(
+      "resize-too-small",
+    );
+    expect((resizeMap(map(8, []), { delta: -4, atPage: 6 }) as { code?: string }).code).toBe(
+      "page-out-of-range",
+    );
   });
 });

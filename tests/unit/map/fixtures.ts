@@ -8,11 +8,20 @@ export function single(id: number, inks: string[], extra: Partial<MapPiece> = {}
 export function spread(id: number, inks: string[], extra: Partial<MapPiece> = {}): MapPiece {
   return { id, title: `Spread ${id}`, kind: "spread", pageCount: 2, inks, ...extra };
 }
-export function run(id: number, pageCount: number, inks: string[], extra: Partial<MapPiece> = {}): MapPiece {
+export function run(
+  id: number,
+  pageCount: number,
+  inks: string[],
+  extra: Partial<MapPiece> = {},
+): MapPiece {
   return { id, title: `Run ${id}`, kind: "run", pageCount, inks, ...extra };
 }
 
-export function map(pageCount: number, pieces: MapPiece[], extra: Partial<MapState> = {}): MapState {
+export function map(
+  pageCount: number,
+  pieces: MapPiece[],
+  extra: Partial<MapState> = {},
+): MapState {
   return emptyMap({
     binding: "saddle-stitch",
     pageCount,
@@ -25,7 +34,10 @@ export function map(pageCount: number, pieces: MapPiece[], extra: Partial<MapSta
 }
 
 /** Puts pieces on the given pages directly (no rule checks), for building test states. */
-export function withPlaced(state: MapState, placements: Array<[pieceId: number, pages: number[]]>): MapState {
+export function withPlaced(
+  state: MapState,
+  placements: Array<[pieceId: number, pages: number[]]>,
+): MapState {
   const slots = state.slots.map((s) => ({ ...s }));
   for (const [pieceId, pages] of placements)
     pages.forEach((p, i) => {

@@ -46,7 +46,14 @@ describe("sheet sides", () => {
   it("16 pages match REFERENCE §6.4 side order [16,1] [2,15] [14,3] [4,13] [12,5] [6,11] [10,7] [8,9]", () => {
     const plan = sheetSides(16, "saddle-stitch");
     expect(plan.sheets.flatMap((s) => [s.front.pages, s.back.pages])).toEqual([
-      [16, 1], [2, 15], [14, 3], [4, 13], [12, 5], [6, 11], [10, 7], [8, 9],
+      [16, 1],
+      [2, 15],
+      [14, 3],
+      [4, 13],
+      [12, 5],
+      [6, 11],
+      [10, 7],
+      [8, 9],
     ]);
     expect(plan.centreSheet).toBe(4);
     expect(plan.centreSpread).toEqual([8, 9]);
@@ -56,7 +63,9 @@ describe("sheet sides", () => {
     for (let n = 4; n <= 96; n += 4) {
       const plan = sheetSides(n, "saddle-stitch");
       expect(plan.sheets).toHaveLength(n / 4);
-      for (const s of plan.sheets) for (const side of [s.front, s.back]) expect((side.pages[0] ?? 0) + (side.pages[1] ?? 0)).toBe(n + 1);
+      for (const s of plan.sheets)
+        for (const side of [s.front, s.back])
+          expect((side.pages[0] ?? 0) + (side.pages[1] ?? 0)).toBe(n + 1);
     }
   });
 

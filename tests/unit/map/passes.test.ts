@@ -54,22 +54,36 @@ describe("drum passes, hand-worked 8-page example", () => {
   });
 
   it("just a black piece on 1 and a teal piece on 8: that side needs 2 passes, the rest none", () => {
-    const s = withPlaced(map(8, [single(1, ["black"]), single(2, ["teal"])]), [[1, [1]], [2, [8]]]);
+    const s = withPlaced(map(8, [single(1, ["black"]), single(2, ["teal"])]), [
+      [1, [1]],
+      [2, [8]],
+    ]);
     const count = countPasses(s);
     expect(count.sides.map((x) => x.passes)).toEqual([2, 0, 0, 0]);
     expect(count.passesPerCopy).toBe(2);
   });
 
   it("⌈inks ÷ inks per pass⌉ (hand-worked: 0→0, 1→1, 3 by 2→2, 4 by 4→1)", () => {
-    expect([passesForInks(0, 1), passesForInks(1, 1), passesForInks(3, 2), passesForInks(4, 4), passesForInks(5, 4)]).toEqual([0, 1, 2, 1, 2]);
+    expect([
+      passesForInks(0, 1),
+      passesForInks(1, 1),
+      passesForInks(3, 2),
+      passesForInks(4, 4),
+      passesForInks(5, 4),
+    ]).toEqual([0, 1, 2, 1, 2]);
   });
 
   it("fold-only 4 pages: outside 4|1 and inside 2|3 are two sides of one sheet (common practice, no source)", () => {
-    const s = withPlaced(map(4, [single(1, ["black"]), single(2, ["teal"]), spread(3, ["red"])], { binding: "fold-only" }), [
-      [1, [1]],
-      [2, [4]],
-      [3, [2, 3]],
-    ]);
+    const s = withPlaced(
+      map(4, [single(1, ["black"]), single(2, ["teal"]), spread(3, ["red"])], {
+        binding: "fold-only",
+      }),
+      [
+        [1, [1]],
+        [2, [4]],
+        [3, [2, 3]],
+      ],
+    );
     const count = countPasses(s);
     expect(count.sides.map((x) => [x.key, x.inks, x.passes])).toEqual([
       ["1-front", ["black", "teal"], 2],
@@ -85,12 +99,18 @@ describe("drum passes agree with the reverse lookup q = min(p, N+1−p), side = 
       fc.property(
         fc.integer({ min: 1, max: 12 }),
         fc.integer({ min: 1, max: 3 }),
-        fc.array(fc.option(fc.subarray(inks, { minLength: 1 }), { nil: null }), { minLength: 48, maxLength: 48 }),
+        fc.array(fc.option(fc.subarray(inks, { minLength: 1 }), { nil: null }), {
+          minLength: 48,
+          maxLength: 48,
+        }),
         (sheets, perPass, pageInks) => {
           const n = sheets * 4;
           const ps = pageInks.slice(0, n).map((ink, i) => (ink ? single(i + 1, ink) : null));
           const pieces = ps.filter((p): p is NonNullable<typeof p> => p !== null);
-          const state = withPlaced(map(n, pieces, { inksPerPass: perPass }), pieces.map((p) => [p.id, [p.id]]));
+          const state = withPlaced(
+            map(n, pieces, { inksPerPass: perPass }),
+            pieces.map((p) => [p.id, [p.id]]),
+          );
           // Independent count: group pages by (sheet, side) from the reverse lookup.
           const sides = new Map<string, Set<string>>();
           for (const p of pieces) {

@@ -32,7 +32,8 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
     <section className="mx-auto max-w-xl py-10">
       <h1 className="text-3xl font-extrabold">Join {found.anthology.title}</h1>
       <p className="mt-4 text-ink-soft">
-        You are invited as {ROLE_LABELS[found.invitation.role].toLowerCase()}. You are signed in as {user.email}.
+        You are invited as {ROLE_LABELS[found.invitation.role].toLowerCase()}. You are signed in as{" "}
+        {user.email}.
       </p>
       <form action={accept} className="mt-6">
         <Button type="submit" variant="accent">

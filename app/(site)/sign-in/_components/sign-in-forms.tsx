@@ -21,7 +21,10 @@ export function SignInForms({ callbackUrl }: { callbackUrl?: string }) {
   );
 }
 
-function applyServerErrors<T extends Record<string, unknown>>(result: FormResult, setError: (name: keyof T & string, e: { message: string }) => void) {
+function applyServerErrors<T extends Record<string, unknown>>(
+  result: FormResult,
+  setError: (name: keyof T & string, e: { message: string }) => void,
+) {
   for (const [name, messages] of Object.entries(result?.fields ?? {})) {
     setError(name as keyof T & string, { message: messages[0] ?? "Check this field" });
   }
@@ -30,7 +33,9 @@ function applyServerErrors<T extends Record<string, unknown>>(result: FormResult
 function PasswordSignIn({ callbackUrl }: { callbackUrl?: string }) {
   const [pending, startTransition] = useTransition();
   const [formError, setFormError] = useState<string>();
-  const { register, handleSubmit, setError, formState } = useForm<PasswordForm>({ resolver: zodResolver(signInSchema) });
+  const { register, handleSubmit, setError, formState } = useForm<PasswordForm>({
+    resolver: zodResolver(signInSchema),
+  });
   const onSubmit = handleSubmit((values) =>
     startTransition(async () => {
       setFormError(undefined);
@@ -41,16 +46,37 @@ function PasswordSignIn({ callbackUrl }: { callbackUrl?: string }) {
   );
   const e = formState.errors;
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-lg border border-ink/10 bg-white/50 p-5" aria-labelledby="pw-title">
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      className="flex flex-col gap-4 rounded-lg border border-ink/10 bg-white/50 p-5"
+      aria-labelledby="pw-title"
+    >
       <h2 id="pw-title" className="text-xl font-semibold">
         With your password
       </h2>
-      {formError ? <Notice tone="error" testId="sign-in-error">{formError}</Notice> : null}
+      {formError ? (
+        <Notice tone="error" testId="sign-in-error">
+          {formError}
+        </Notice>
+      ) : null}
       <Field id="pw-email" label="E-mail" error={e.email?.message}>
-        <input {...register("email")} {...describedBy("pw-email", e.email?.message)} type="email" autoComplete="email" className={inputClass} />
+        <input
+          {...register("email")}
+          {...describedBy("pw-email", e.email?.message)}
+          type="email"
+          autoComplete="email"
+          className={inputClass}
+        />
       </Field>
       <Field id="pw-password" label="Password" error={e.password?.message}>
-        <input {...register("password")} {...describedBy("pw-password", e.password?.message)} type="password" autoComplete="current-password" className={inputClass} />
+        <input
+          {...register("password")}
+          {...describedBy("pw-password", e.password?.message)}
+          type="password"
+          autoComplete="current-password"
+          className={inputClass}
+        />
       </Field>
       <Button type="submit" busy={pending}>
         {pending ? "Signing in…" : "Sign in"}
@@ -62,7 +88,9 @@ function PasswordSignIn({ callbackUrl }: { callbackUrl?: string }) {
 function EmailLinkSignIn({ callbackUrl }: { callbackUrl?: string }) {
   const [pending, startTransition] = useTransition();
   const [formError, setFormError] = useState<string>();
-  const { register, handleSubmit, setError, formState } = useForm<{ email: string }>({ resolver: zodResolver(emailLinkSchema) });
+  const { register, handleSubmit, setError, formState } = useForm<{ email: string }>({
+    resolver: zodResolver(emailLinkSchema),
+  });
   const onSubmit = handleSubmit((values) =>
     startTransition(async () => {
       setFormError(undefined);
@@ -72,14 +100,27 @@ function EmailLinkSignIn({ callbackUrl }: { callbackUrl?: string }) {
     }),
   );
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-lg border border-ink/10 bg-white/50 p-5" aria-labelledby="link-title">
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      className="flex flex-col gap-4 rounded-lg border border-ink/10 bg-white/50 p-5"
+      aria-labelledby="link-title"
+    >
       <h2 id="link-title" className="text-xl font-semibold">
         With a link by e-mail
       </h2>
-      <p className="text-sm text-ink-soft">No password needed: we send a link that signs you in once, within the hour.</p>
+      <p className="text-sm text-ink-soft">
+        No password needed: we send a link that signs you in once, within the hour.
+      </p>
       {formError ? <Notice tone="error">{formError}</Notice> : null}
       <Field id="link-email" label="E-mail" error={formState.errors.email?.message}>
-        <input {...register("email")} {...describedBy("link-email", formState.errors.email?.message)} type="email" autoComplete="email" className={inputClass} />
+        <input
+          {...register("email")}
+          {...describedBy("link-email", formState.errors.email?.message)}
+          type="email"
+          autoComplete="email"
+          className={inputClass}
+        />
       </Field>
       <Button type="submit" variant="quiet" busy={pending}>
         {pending ? "Sending…" : "Send me a sign-in link"}

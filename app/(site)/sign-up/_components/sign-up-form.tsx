@@ -11,7 +11,9 @@ import { signUpAction } from "../../sign-in/actions";
 /** Name, e-mail and password; field errors come from the shared schema and from the server. */
 export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
   const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema) });
+  const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({
+    resolver: zodResolver(signUpSchema),
+  });
   const onSubmit = handleSubmit((values) =>
     startTransition(async () => {
       const result = await signUpAction(values, callbackUrl);
@@ -22,15 +24,46 @@ export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
   );
   const e = formState.errors;
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-lg border border-ink/10 bg-white/50 p-5">
-      <Field id="name" label="Your name" hint="As you would like editors to see it." error={e.name?.message}>
-        <input {...register("name")} {...describedBy("name", e.name?.message)} autoComplete="name" className={inputClass} />
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      className="flex flex-col gap-4 rounded-lg border border-ink/10 bg-white/50 p-5"
+    >
+      <Field
+        id="name"
+        label="Your name"
+        hint="As you would like editors to see it."
+        error={e.name?.message}
+      >
+        <input
+          {...register("name")}
+          {...describedBy("name", e.name?.message)}
+          autoComplete="name"
+          className={inputClass}
+        />
       </Field>
       <Field id="email" label="E-mail" error={e.email?.message}>
-        <input {...register("email")} {...describedBy("email", e.email?.message)} type="email" autoComplete="email" className={inputClass} />
+        <input
+          {...register("email")}
+          {...describedBy("email", e.email?.message)}
+          type="email"
+          autoComplete="email"
+          className={inputClass}
+        />
       </Field>
-      <Field id="password" label="Password" hint="At least 10 characters, with letters and a digit." error={e.password?.message}>
-        <input {...register("password")} {...describedBy("password", e.password?.message)} type="password" autoComplete="new-password" className={inputClass} />
+      <Field
+        id="password"
+        label="Password"
+        hint="At least 10 characters, with letters and a digit."
+        error={e.password?.message}
+      >
+        <input
+          {...register("password")}
+          {...describedBy("password", e.password?.message)}
+          type="password"
+          autoComplete="new-password"
+          className={inputClass}
+        />
       </Field>
       <Button type="submit" variant="accent" busy={pending}>
         {pending ? "Creating your account…" : "Create account"}

@@ -14,7 +14,13 @@ const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "/members", label: "People", action: "members:invite" },
 ];
 
-export default async function AnthologyLayout({ children, params }: { children: ReactNode; params: Promise<{ slug: string }> }) {
+export default async function AnthologyLayout({
+  children,
+  params,
+}: {
+  children: ReactNode;
+  params: Promise<{ slug: string }>;
+}) {
   const { slug } = await params;
   const user = await currentUser();
   const anthology = await findAnthologyBySlug(slug);
@@ -23,10 +29,17 @@ export default async function AnthologyLayout({ children, params }: { children: 
   return (
     <div className="flex flex-col gap-6">
       {anthology && visible.length > 0 ? (
-        <nav aria-label={`${anthology.title} sections`} className="flex flex-wrap gap-1 border-b border-ink/10 pb-2 text-sm">
+        <nav
+          aria-label={`${anthology.title} sections`}
+          className="flex flex-wrap gap-1 border-b border-ink/10 pb-2 text-sm"
+        >
           <span className="mr-3 font-display font-semibold">{anthology.title}</span>
           {visible.map((s) => (
-            <Link key={s.href} href={`/studio/${slug}${s.href}`} className="rounded px-2 py-1 no-underline hover:bg-paper-deep">
+            <Link
+              key={s.href}
+              href={`/studio/${slug}${s.href}`}
+              className="rounded px-2 py-1 no-underline hover:bg-paper-deep"
+            >
               {s.label}
             </Link>
           ))}

@@ -20,19 +20,26 @@ export default async function AnthologyOverview({ params }: { params: Promise<{ 
     ["Binding", BINDING_LABELS[a.binding]],
     ["Pages", `${a.pageCountTarget} planned, at most ${a.maxPages}`],
     ["Inside paper", `${a.paperGsm} gsm, ${a.paperCaliperMm} mm thick`],
-    ["Cover", a.coverStock === "self" ? "Self-cover (same paper)" : `Separate stock, ${a.coverPaperGsm} gsm`],
+    [
+      "Cover",
+      a.coverStock === "self"
+        ? "Self-cover (same paper)"
+        : `Separate stock, ${a.coverPaperGsm} gsm`,
+    ],
     ["Print method", PRINT_METHOD_LABELS[a.printMethod]],
     ["Inks", a.inks.join(", ")],
   ];
   const call = await findCall(a.id);
   const phase = callPhase(call?.publishedAt ? call : null, a.stage, new Date());
   const publicPath = `/calls/${a.slug}`;
-  const heavyCover = a.coverStock === "separate" && a.coverPaperGsm !== null && shouldScore(a.coverPaperGsm);
+  const heavyCover =
+    a.coverStock === "separate" && a.coverPaperGsm !== null && shouldScore(a.coverPaperGsm);
   return (
     <div className="flex flex-col gap-8">
       <div>
         <p className="text-sm text-ink-soft">
-          {a.pressName ?? "Anthology"} · {STAGE_LABELS[a.stage]} · you are {role ? ROLE_LABELS[role].toLowerCase() : "a visitor"}
+          {a.pressName ?? "Anthology"} · {STAGE_LABELS[a.stage]} · you are{" "}
+          {role ? ROLE_LABELS[role].toLowerCase() : "a visitor"}
         </p>
         <h1 className="text-4xl font-extrabold" data-testid="anthology-title">
           {a.title}
@@ -79,7 +86,10 @@ export default async function AnthologyOverview({ params }: { params: Promise<{ 
         <h2 id="spec-title" className="mb-3 text-2xl font-semibold">
           Print spec
         </h2>
-        <dl className="grid grid-cols-[12rem_1fr] gap-x-4 gap-y-2 text-sm" data-testid="spec-summary">
+        <dl
+          className="grid grid-cols-[12rem_1fr] gap-x-4 gap-y-2 text-sm"
+          data-testid="spec-summary"
+        >
           {rows.map(([label, value]) => (
             <div key={label} className="contents">
               <dt className="text-ink-soft">{label}</dt>
@@ -88,7 +98,10 @@ export default async function AnthologyOverview({ params }: { params: Promise<{ 
           ))}
         </dl>
         {heavyCover ? (
-          <p className="mt-4 text-sm text-ink-soft">The cover stock is heavy enough that it should be scored before folding so it does not crack.</p>
+          <p className="mt-4 text-sm text-ink-soft">
+            The cover stock is heavy enough that it should be scored before folding so it does not
+            crack.
+          </p>
         ) : null}
       </section>
     </div>

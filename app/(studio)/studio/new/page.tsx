@@ -9,7 +9,10 @@ export default async function NewAnthologyPage() {
     <div className="flex max-w-4xl flex-col gap-6">
       <div>
         <h1 className="text-3xl font-extrabold">New anthology</h1>
-        <p className="text-ink-soft">The spec you set here is what every contributor&apos;s file is checked against. You can change it later.</p>
+        <p className="text-ink-soft">
+          The spec you set here is what every contributor&apos;s file is checked against. You can
+          change it later.
+        </p>
       </div>
       <AnthologyForm />
     </div>

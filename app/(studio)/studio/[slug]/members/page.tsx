@@ -8,7 +8,11 @@ export const metadata = { title: "People" };
 
 export default async function MembersPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
-  const { anthology, role } = await requireAnthologyAccess(slug, "members:invite", `/studio/${slug}/members`);
+  const { anthology, role } = await requireAnthologyAccess(
+    slug,
+    "members:invite",
+    `/studio/${slug}/members`,
+  );
   const members = await listMembers(anthology.id);
   return (
     <div className="flex max-w-3xl flex-col gap-8">

@@ -11,7 +11,12 @@ import { BINDING_LABELS, BINDINGS, PRINT_METHOD_LABELS, PRINT_METHODS } from "@/
 import { defaultCaliperMm, shouldScore } from "@/lib/print/paper";
 import { findPreset } from "@/lib/print/sizes";
 import { z } from "zod";
-import { anthologyInputSchema, TRIM_CHOICES, type AnthologyInput, type AnthologyParsed } from "@/lib/validations/anthology";
+import {
+  anthologyInputSchema,
+  TRIM_CHOICES,
+  type AnthologyInput,
+  type AnthologyParsed,
+} from "@/lib/validations/anthology";
 
 type FormValues = Omit<AnthologyInput, "inks"> & { inkRows: { name: string }[] };
 
@@ -54,7 +59,10 @@ export function AnthologyForm() {
   });
   const { register, handleSubmit, control, setError, formState } = form;
   const inks = useFieldArray({ control, name: "inkRows" });
-  const [trimChoice, unit, paperGsm, coverStock, coverGsm] = useWatch({ control, name: ["trimChoice", "unit", "paperGsm", "coverStock", "coverPaperGsm"] });
+  const [trimChoice, unit, paperGsm, coverStock, coverGsm] = useWatch({
+    control,
+    name: ["trimChoice", "unit", "paperGsm", "coverStock", "coverPaperGsm"],
+  });
   const e = formState.errors;
   const unitLabel = unit === "in" ? "in" : "mm";
   const preset = trimChoice === "custom" ? undefined : findPreset(trimChoice);
@@ -74,7 +82,9 @@ export function AnthologyForm() {
       });
       const body = await response.json();
       if (!response.ok) {
-        for (const [name, messages] of Object.entries((body.fields ?? {}) as Record<string, string[]>)) {
+        for (const [name, messages] of Object.entries(
+          (body.fields ?? {}) as Record<string, string[]>,
+        )) {
           setError(name as keyof FormValues, { message: messages[0] ?? "Check this field" });
         }
         setServerError(body.error ?? "The anthology was not saved.");
@@ -91,24 +101,55 @@ export function AnthologyForm() {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-8" aria-label="New anthology">
-      {serverError ? <Notice tone="error" testId="form-error">{serverError}</Notice> : null}
+      {serverError ? (
+        <Notice tone="error" testId="form-error">
+          {serverError}
+        </Notice>
+      ) : null}
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-xl font-semibold">The anthology</legend>
         <Field id="title" label="Title" error={e.title?.message}>
-          <input {...register("title")} {...describedBy("title", e.title?.message)} className={inputClass} />
+          <input
+            {...register("title")}
+            {...describedBy("title", e.title?.message)}
+            className={inputClass}
+          />
         </Field>
-        <Field id="pressName" label="Press or collective" hint="Optional." error={e.pressName?.message}>
-          <input {...register("pressName")} {...describedBy("pressName", e.pressName?.message)} className={inputClass} />
+        <Field
+          id="pressName"
+          label="Press or collective"
+          hint="Optional."
+          error={e.pressName?.message}
+        >
+          <input
+            {...register("pressName")}
+            {...describedBy("pressName", e.pressName?.message)}
+            className={inputClass}
+          />
         </Field>
-        <Field id="summary" label="One-line summary" hint="Optional; shown on the open call." className="sm:col-span-2" error={e.summary?.message}>
-          <input {...register("summary")} {...describedBy("summary", e.summary?.message)} className={inputClass} />
+        <Field
+          id="summary"
+          label="One-line summary"
+          hint="Optional; shown on the open call."
+          className="sm:col-span-2"
+          error={e.summary?.message}
+        >
+          <input
+            {...register("summary")}
+            {...describedBy("summary", e.summary?.message)}
+            className={inputClass}
+          />
         </Field>
       </fieldset>
 
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="mb-2 text-xl font-semibold">Trim, bleed and safe area</legend>
         <Field id="trimChoice" label="Trim size" error={e.trimChoice?.message}>
-          <select {...register("trimChoice")} {...describedBy("trimChoice", e.trimChoice?.message)} className={selectClass}>
+          <select
+            {...register("trimChoice")}
+            {...describedBy("trimChoice", e.trimChoice?.message)}
+            className={selectClass}
+          >
             {TRIM_CHOICES.map((id) => (
               <option key={id} value={id}>
                 {id === "custom" ? "Custom size" : (findPreset(id)?.label ?? id)}
@@ -122,7 +163,11 @@ export function AnthologyForm() {
             <option value="landscape">Landscape (wider than tall)</option>
           </select>
         </Field>
-        <Field id="unit" label="Unit for lengths" hint="Used for custom size, bleed and safe margin.">
+        <Field
+          id="unit"
+          label="Unit for lengths"
+          hint="Used for custom size, bleed and safe margin."
+        >
           <select {...register("unit")} {...describedBy("unit")} className={selectClass}>
             <option value="in">inches</option>
             <option value="mm">millimetres</option>
@@ -131,25 +176,71 @@ export function AnthologyForm() {
         {trimChoice === "custom" ? (
           <>
             <Field id="customWidth" label={`Width (${unitLabel})`} error={e.customWidth?.message}>
-              <input {...register("customWidth")} {...describedBy("customWidth", e.customWidth?.message)} inputMode="decimal" className={inputClass} />
+              <input
+                {...register("customWidth")}
+                {...describedBy("customWidth", e.customWidth?.message)}
+                inputMode="decimal"
+                className={inputClass}
+              />
             </Field>
-            <Field id="customHeight" label={`Height (${unitLabel})`} error={e.customHeight?.message}>
-              <input {...register("customHeight")} {...describedBy("customHeight", e.customHeight?.message)} inputMode="decimal" className={inputClass} />
+            <Field
+              id="customHeight"
+              label={`Height (${unitLabel})`}
+              error={e.customHeight?.message}
+            >
+              <input
+                {...register("customHeight")}
+                {...describedBy("customHeight", e.customHeight?.message)}
+                inputMode="decimal"
+                className={inputClass}
+              />
             </Field>
           </>
         ) : (
           <p className="self-end text-sm text-ink-soft sm:col-span-2" data-testid="trim-size">
-            {preset ? `${Number(preset.widthMm.toFixed(1))} x ${Number(preset.heightMm.toFixed(1))} mm` : null}
+            {preset
+              ? `${Number(preset.widthMm.toFixed(1))} x ${Number(preset.heightMm.toFixed(1))} mm`
+              : null}
           </p>
         )}
-        <Field id="bleed" label={`Bleed (${unitLabel})`} hint={unit === "in" ? "Usually 0.125 in." : "Usually 3 mm."} error={e.bleed?.message}>
-          <input {...register("bleed")} {...describedBy("bleed", e.bleed?.message)} inputMode="decimal" className={inputClass} />
+        <Field
+          id="bleed"
+          label={`Bleed (${unitLabel})`}
+          hint={unit === "in" ? "Usually 0.125 in." : "Usually 3 mm."}
+          error={e.bleed?.message}
+        >
+          <input
+            {...register("bleed")}
+            {...describedBy("bleed", e.bleed?.message)}
+            inputMode="decimal"
+            className={inputClass}
+          />
         </Field>
-        <Field id="safeMargin" label={`Safe margin (${unitLabel})`} hint="Keep text this far inside the trim." error={e.safeMargin?.message}>
-          <input {...register("safeMargin")} {...describedBy("safeMargin", e.safeMargin?.message)} inputMode="decimal" className={inputClass} />
+        <Field
+          id="safeMargin"
+          label={`Safe margin (${unitLabel})`}
+          hint="Keep text this far inside the trim."
+          error={e.safeMargin?.message}
+        >
+          <input
+            {...register("safeMargin")}
+            {...describedBy("safeMargin", e.safeMargin?.message)}
+            inputMode="decimal"
+            className={inputClass}
+          />
         </Field>
-        <Field id="minPpi" label="Minimum resolution (ppi)" hint="300 ppi for photos and tones." error={e.minPpi?.message}>
-          <input {...register("minPpi")} {...describedBy("minPpi", e.minPpi?.message)} inputMode="numeric" className={inputClass} />
+        <Field
+          id="minPpi"
+          label="Minimum resolution (ppi)"
+          hint="300 ppi for photos and tones."
+          error={e.minPpi?.message}
+        >
+          <input
+            {...register("minPpi")}
+            {...describedBy("minPpi", e.minPpi?.message)}
+            inputMode="numeric"
+            className={inputClass}
+          />
         </Field>
       </fieldset>
 
@@ -164,32 +255,70 @@ export function AnthologyForm() {
             ))}
           </select>
         </Field>
-        <Field id="pageCountTarget" label="Pages (with covers)" hint="A multiple of 4 for saddle stitch." error={e.pageCountTarget?.message}>
-          <input {...register("pageCountTarget")} {...describedBy("pageCountTarget", e.pageCountTarget?.message)} inputMode="numeric" className={inputClass} />
+        <Field
+          id="pageCountTarget"
+          label="Pages (with covers)"
+          hint="A multiple of 4 for saddle stitch."
+          error={e.pageCountTarget?.message}
+        >
+          <input
+            {...register("pageCountTarget")}
+            {...describedBy("pageCountTarget", e.pageCountTarget?.message)}
+            inputMode="numeric"
+            className={inputClass}
+          />
         </Field>
         <Field id="maxPages" label="Most pages the stapler allows" error={e.maxPages?.message}>
-          <input {...register("maxPages")} {...describedBy("maxPages", e.maxPages?.message)} inputMode="numeric" className={inputClass} />
+          <input
+            {...register("maxPages")}
+            {...describedBy("maxPages", e.maxPages?.message)}
+            inputMode="numeric"
+            className={inputClass}
+          />
         </Field>
         <Field id="paperGsm" label="Inside paper (gsm)" error={e.paperGsm?.message}>
-          <input {...register("paperGsm")} {...describedBy("paperGsm", e.paperGsm?.message)} inputMode="numeric" className={inputClass} />
+          <input
+            {...register("paperGsm")}
+            {...describedBy("paperGsm", e.paperGsm?.message)}
+            inputMode="numeric"
+            className={inputClass}
+          />
         </Field>
         <Field
           id="paperCaliperMm"
           label="Paper caliper (mm)"
-          hint={gsmNumber > 0 ? `Leave empty to estimate ${defaultCaliperMm(gsmNumber).toFixed(3)} mm from the weight.` : "Leave empty to estimate from the weight."}
+          hint={
+            gsmNumber > 0
+              ? `Leave empty to estimate ${defaultCaliperMm(gsmNumber).toFixed(3)} mm from the weight.`
+              : "Leave empty to estimate from the weight."
+          }
           error={e.paperCaliperMm?.message}
         >
-          <input {...register("paperCaliperMm")} {...describedBy("paperCaliperMm", e.paperCaliperMm?.message)} inputMode="decimal" className={inputClass} />
+          <input
+            {...register("paperCaliperMm")}
+            {...describedBy("paperCaliperMm", e.paperCaliperMm?.message)}
+            inputMode="decimal"
+            className={inputClass}
+          />
         </Field>
         <Field id="coverStock" label="Cover">
-          <select {...register("coverStock")} {...describedBy("coverStock")} className={selectClass}>
+          <select
+            {...register("coverStock")}
+            {...describedBy("coverStock")}
+            className={selectClass}
+          >
             <option value="self">Same paper as the inside (self-cover)</option>
             <option value="separate">Separate, heavier cover stock</option>
           </select>
         </Field>
         {coverStock === "separate" ? (
           <Field id="coverPaperGsm" label="Cover stock (gsm)" error={e.coverPaperGsm?.message}>
-            <input {...register("coverPaperGsm")} {...describedBy("coverPaperGsm", e.coverPaperGsm?.message)} inputMode="numeric" className={inputClass} />
+            <input
+              {...register("coverPaperGsm")}
+              {...describedBy("coverPaperGsm", e.coverPaperGsm?.message)}
+              inputMode="numeric"
+              className={inputClass}
+            />
           </Field>
         ) : null}
         {(coverStock === "separate" && shouldScore(coverNumber)) || shouldScore(gsmNumber) ? (
@@ -202,7 +331,11 @@ export function AnthologyForm() {
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="mb-2 text-xl font-semibold">Printing</legend>
         <Field id="printMethod" label="Print method">
-          <select {...register("printMethod")} {...describedBy("printMethod")} className={selectClass}>
+          <select
+            {...register("printMethod")}
+            {...describedBy("printMethod")}
+            className={selectClass}
+          >
             {PRINT_METHODS.map((m) => (
               <option key={m} value={m}>
                 {PRINT_METHOD_LABELS[m]}
@@ -210,8 +343,18 @@ export function AnthologyForm() {
             ))}
           </select>
         </Field>
-        <Field id="inksPerPass" label="Inks per pass" hint="A stencil duplicator lays one ink per pass." error={e.inksPerPass?.message}>
-          <input {...register("inksPerPass")} {...describedBy("inksPerPass", e.inksPerPass?.message)} inputMode="numeric" className={inputClass} />
+        <Field
+          id="inksPerPass"
+          label="Inks per pass"
+          hint="A stencil duplicator lays one ink per pass."
+          error={e.inksPerPass?.message}
+        >
+          <input
+            {...register("inksPerPass")}
+            {...describedBy("inksPerPass", e.inksPerPass?.message)}
+            inputMode="numeric"
+            className={inputClass}
+          />
         </Field>
         <div className="flex flex-col gap-2 sm:col-span-3">
           <p className="text-sm font-semibold" id="inks-label">
@@ -220,16 +363,30 @@ export function AnthologyForm() {
           <ul className="flex flex-wrap gap-2" aria-labelledby="inks-label">
             {inks.fields.map((field, index) => (
               <li key={field.id} className="flex items-center gap-1">
-                <input {...register(`inkRows.${index}.name` as const)} aria-label={`Ink ${index + 1}`} className={`${inputClass} w-40`} />
+                <input
+                  {...register(`inkRows.${index}.name` as const)}
+                  aria-label={`Ink ${index + 1}`}
+                  className={`${inputClass} w-40`}
+                />
                 {inks.fields.length > 1 ? (
-                  <button type="button" onClick={() => inks.remove(index)} className="rounded px-2 text-sm text-ink-soft hover:bg-paper-deep" aria-label={`Remove ink ${index + 1}`}>
+                  <button
+                    type="button"
+                    onClick={() => inks.remove(index)}
+                    className="rounded px-2 text-sm text-ink-soft hover:bg-paper-deep"
+                    aria-label={`Remove ink ${index + 1}`}
+                  >
                     ✕
                   </button>
                 ) : null}
               </li>
             ))}
             <li>
-              <Button type="button" variant="quiet" onClick={() => inks.append({ name: "" })} disabled={inks.fields.length >= 8}>
+              <Button
+                type="button"
+                variant="quiet"
+                onClick={() => inks.append({ name: "" })}
+                disabled={inks.fields.length >= 8}
+              >
                 Add an ink
               </Button>
             </li>

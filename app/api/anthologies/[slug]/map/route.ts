@@ -10,7 +10,10 @@ function copiesFrom(request: Request): number {
   const raw = new URL(request.url).searchParams.get("copies");
   if (raw === null || raw === "") return COPIES_DEFAULT;
   const parsed = copiesSchema.safeParse(raw);
-  if (!parsed.success) throw new HttpError(400, "Copies must be a whole number from 1 to 100 000.", { fields: { copies: ["Whole number from 1 to 100 000"] } });
+  if (!parsed.success)
+    throw new HttpError(400, "Copies must be a whole number from 1 to 100 000.", {
+      fields: { copies: ["Whole number from 1 to 100 000"] },
+    });
   return parsed.data;
 }
 
@@ -18,7 +21,9 @@ function copiesFrom(request: Request): number {
 export const GET = apiRoute(async (request, { params }: Context) => {
   const { slug } = await params;
   const { anthology, role } = await requireApiAccess(slug, "map:view");
-  return Response.json(await loadMap(anthology, { canEdit: can(role, "map:edit"), copies: copiesFrom(request) }));
+  return Response.json(
+    await loadMap(anthology, { canEdit: can(role, "map:edit"), copies: copiesFrom(request) }),
+  );
 });
 
 /**
@@ -38,7 +43,11 @@ export const POST = apiRoute(async (request, { params }: Context) => {
     return Response.json(body, { status: 409 });
   }
   if (outcome.kind === "refused") {
-    const body: MapRefusalAnswer = { error: outcome.reason, pages: outcome.pages, pieceIds: outcome.pieceIds };
+    const body: MapRefusalAnswer = {
+      error: outcome.reason,
+      pages: outcome.pages,
+      pieceIds: outcome.pieceIds,
+    };
     return Response.json(body, { status: 422 });
   }
   const body: MapChangeAnswer = { ...outcome.map, summary: outcome.summary };

@@ -18,7 +18,10 @@ const ARROWS = ["ArrowRight", "ArrowLeft", "ArrowDown", "ArrowUp"] as const;
  * Arrow keys move a piece picked up with the keyboard to the nearest page (or the tray) in that
  * direction, centred on it, instead of nudging it a few pixels at a time.
  */
-export const pageKeyboardCoordinates: KeyboardCoordinateGetter = (event, { context, currentCoordinates }) => {
+export const pageKeyboardCoordinates: KeyboardCoordinateGetter = (
+  event,
+  { context, currentCoordinates },
+) => {
   const direction = ARROWS.find((key) => key === event.code);
   if (!direction) return undefined;
   event.preventDefault();
@@ -34,13 +37,23 @@ export const pageKeyboardCoordinates: KeyboardCoordinateGetter = (event, { conte
     if (!rect) continue;
     const dx = rect.left + rect.width / 2 - cx;
     const dy = rect.top + rect.height / 2 - cy;
-    const ahead = direction === "ArrowRight" ? dx > 2 : direction === "ArrowLeft" ? dx < -2 : direction === "ArrowDown" ? dy > 2 : dy < -2;
+    const ahead =
+      direction === "ArrowRight"
+        ? dx > 2
+        : direction === "ArrowLeft"
+          ? dx < -2
+          : direction === "ArrowDown"
+            ? dy > 2
+            : dy < -2;
     if (!ahead) continue;
     // Prefer what lies straight ahead: distance off the line counts three times.
     const score = across ? Math.abs(dx) + 3 * Math.abs(dy) : Math.abs(dy) + 3 * Math.abs(dx);
     if (score < bestScore) {
       bestScore = score;
-      best = { x: rect.left + (rect.width - collisionRect.width) / 2, y: rect.top + (rect.height - collisionRect.height) / 2 };
+      best = {
+        x: rect.left + (rect.width - collisionRect.width) / 2,
+        y: rect.top + (rect.height - collisionRect.height) / 2,
+      };
     }
   }
   return best ?? currentCoordinates;

@@ -10,7 +10,10 @@ export function HistoryPanel({ events }: { events: MapEventView[] }) {
       {events.length === 0 ? (
         <p className="text-sm text-ink-soft">No changes yet.</p>
       ) : (
-        <ol className="flex max-h-72 flex-col gap-1.5 overflow-y-auto text-xs" data-testid="map-history">
+        <ol
+          className="flex max-h-72 flex-col gap-1.5 overflow-y-auto text-xs"
+          data-testid="map-history"
+        >
           {events.map((e) => (
             <li key={e.id} className="border-l-2 border-ink/15 pl-2">
               <p>{e.summary}</p>

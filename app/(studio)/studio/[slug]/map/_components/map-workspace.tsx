@@ -17,7 +17,12 @@ import { Notice } from "@/components/ui/notice";
 import { checkMap } from "@/lib/map/check";
 import { countPasses } from "@/lib/map/passes";
 import { slotsByPage, unplacedPieces } from "@/lib/map/state";
-import type { MapPayload, MapRefusalAnswer, NoticesAnswer, ProposalAnswer } from "@/lib/map-edits/payload";
+import type {
+  MapPayload,
+  MapRefusalAnswer,
+  NoticesAnswer,
+  ProposalAnswer,
+} from "@/lib/map-edits/payload";
 import { COPIES_DEFAULT } from "@/lib/validations/page-map";
 import type { MapChange } from "@/lib/validations/page-map";
 import { pageKeyboardCoordinates, pageOfDropId, TRAY_DROP_ID, type DragData } from "./drag";
@@ -56,7 +61,8 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
   useEffect(() => setHydrated(true), []);
 
   const copiesNumber = Number(copiesText);
-  const copiesValid = Number.isInteger(copiesNumber) && copiesNumber >= 1 && copiesNumber <= 100_000;
+  const copiesValid =
+    Number.isInteger(copiesNumber) && copiesNumber >= 1 && copiesNumber <= 100_000;
   const copies = copiesValid ? copiesNumber : COPIES_DEFAULT;
 
   const shown = proposal ? proposal.proposal.state : map.state;
@@ -65,18 +71,33 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
   const passes = useMemo(() => countPasses(shown, copies), [shown, copies]);
   const pieces = useMemo(() => piecesById(shown, map.cards), [shown, map.cards]);
   const byPage = useMemo(() => messagesByPage(check.messages), [check]);
-  const waiting = useMemo(() => unplacedPieces(shown).map((p) => pieces.get(p.id)!).filter(Boolean), [shown, pieces]);
+  const waiting = useMemo(
+    () =>
+      unplacedPieces(shown)
+        .map((p) => pieces.get(p.id)!)
+        .filter(Boolean),
+    [shown, pieces],
+  );
   const leftOut = useMemo(() => [...pieces.values()].filter((p) => p.leftOut), [pieces]);
   const slots = slotsByPage(shown);
   const selectedSlot = selectedPage !== null ? slots[selectedPage] : undefined;
 
   // While dragging, pages where the piece would be accepted are outlined and the rest dimmed.
-  const dropStarts = useMemo(() => (drag ? new Set(validStarts(map.state, drag.pieceId, drag.from === "tray" ? "place" : "move")) : null), [drag, map.state]);
+  const dropStarts = useMemo(
+    () =>
+      drag
+        ? new Set(validStarts(map.state, drag.pieceId, drag.from === "tray" ? "place" : "move"))
+        : null,
+    [drag, map.state],
+  );
   const markFor = (page: number): SlotMark => {
     if (!drag || !dropStarts) return null;
     return dropStarts.has(page - (drag.index - 1)) ? "drop-ok" : "drop-no";
   };
-  const flaggedPages = useMemo(() => new Set(feedback?.tone === "error" ? (feedback.pages ?? []) : []), [feedback]);
+  const flaggedPages = useMemo(
+    () => new Set(feedback?.tone === "error" ? (feedback.pages ?? []) : []),
+    [feedback],
+  );
 
   const sensors = useSensors(
     useSensor(PointerSensor, { activationConstraint: { distance: 5 } }),
@@ -89,19 +110,27 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
 
   const title = (id: number) => pieces.get(id)?.title ?? `piece ${id}`;
   const announcements: Announcements = {
-    onDragStart: ({ active }) => `Picked up ${title((active.data.current as DragData).pieceId)}. Use the arrow keys to move over a page, Space to drop, Escape to cancel.`,
+    onDragStart: ({ active }) =>
+      `Picked up ${title((active.data.current as DragData).pieceId)}. Use the arrow keys to move over a page, Space to drop, Escape to cancel.`,
     onDragOver: ({ active, over }) => {
       const page = pageOfDropId(over?.id);
       const name = title((active.data.current as DragData).pieceId);
       if (page !== null) return `${name} is over page ${page}.`;
-      return over?.id === TRAY_DROP_ID ? `${name} is over the tray; dropping takes it off the map.` : `${name} is not over a page.`;
+      return over?.id === TRAY_DROP_ID
+        ? `${name} is over the tray; dropping takes it off the map.`
+        : `${name} is not over a page.`;
     },
     onDragEnd: ({ active, over }) => {
       const page = pageOfDropId(over?.id);
       const name = title((active.data.current as DragData).pieceId);
-      return page !== null ? `Dropped ${name} on page ${page}.` : over?.id === TRAY_DROP_ID ? `${name} back to the tray.` : `${name} was not moved.`;
+      return page !== null
+        ? `Dropped ${name} on page ${page}.`
+        : over?.id === TRAY_DROP_ID
+          ? `${name} back to the tray.`
+          : `${name} was not moved.`;
     },
-    onDragCancel: ({ active }) => `Cancelled; ${title((active.data.current as DragData).pieceId)} stays where it was.`,
+    onDragCancel: ({ active }) =>
+      `Cancelled; ${title((active.data.current as DragData).pieceId)} stays where it was.`,
   };
 
   const onDragStart = (event: DragStartEvent) => {
@@ -131,14 +160,21 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
         headers: { "content-type": "application/json" },
         body: JSON.stringify({ version: map.version, copies }),
       });
-      const body = (await response.json().catch(() => null)) as (ProposalAnswer & MapRefusalAnswer) | null;
+      const body = (await response.json().catch(() => null)) as
+        (ProposalAnswer & MapRefusalAnswer) | null;
       if (response.ok && body) setProposal(body);
       else {
         if (body?.map) queryClient.setQueryData(mapKey(slug), body.map);
-        setFeedback({ tone: response.status === 409 ? "warn" : "error", text: body?.error ?? `No proposal (${response.status}).` });
+        setFeedback({
+          tone: response.status === 409 ? "warn" : "error",
+          text: body?.error ?? `No proposal (${response.status}).`,
+        });
       }
     } catch {
-      setFeedback({ tone: "error", text: "The server did not answer; no proposal was made. Try again." });
+      setFeedback({
+        tone: "error",
+        text: "The server did not answer; no proposal was made. Try again.",
+      });
     } finally {
       setProposalBusy(false);
     }
@@ -148,7 +184,10 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
     if (!proposal) return;
     if (proposal.version !== map.version) {
       setProposal(null);
-      setFeedback({ tone: "warn", text: "The map changed since this proposal was made; ask for a fresh one." });
+      setFeedback({
+        tone: "warn",
+        text: "The map changed since this proposal was made; ask for a fresh one.",
+      });
       return;
     }
     setProposalBusy(true);
@@ -163,14 +202,22 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
     setNotices(null);
     try {
       const response = await fetch(`/api/anthologies/${slug}/map/notices`, { method: "POST" });
-      const body = (await response.json().catch(() => null)) as (NoticesAnswer & { error?: string }) | null;
+      const body = (await response.json().catch(() => null)) as
+        (NoticesAnswer & { error?: string }) | null;
       if (!response.ok || !body) {
-        setNotices({ tone: "error", text: body?.error ?? `No notices were sent (${response.status}).` });
+        setNotices({
+          tone: "error",
+          text: body?.error ?? `No notices were sent (${response.status}).`,
+        });
       } else if (body.contributors === 0) {
-        setNotices({ tone: "info", text: "No pieces are on the map yet, so there is nobody to tell." });
+        setNotices({
+          tone: "info",
+          text: "No pieces are on the map yet, so there is nobody to tell.",
+        });
       } else {
         const parts = [`Sent ${body.sent} ${body.sent === 1 ? "notice" : "notices"}`];
-        if (body.alreadySent) parts.push(`${body.alreadySent} already had these pages and were not written to again`);
+        if (body.alreadySent)
+          parts.push(`${body.alreadySent} already had these pages and were not written to again`);
         if (body.failed) parts.push(`${body.failed} could not be sent (see the mail log)`);
         setNotices({ tone: body.failed ? "error" : "info", text: `${parts.join("; ")}.` });
       }
@@ -184,10 +231,26 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
   const dialogPiece = dialog ? pieces.get(dialog.pieceId) : undefined;
 
   return (
-    <DndContext id="page-map" sensors={sensors} onDragStart={onDragStart} onDragEnd={onDragEnd} onDragCancel={() => setDrag(null)} accessibility={{ announcements }}>
-      <div className="flex flex-col gap-4" data-testid="map-screen" data-version={map.version} data-ready={hydrated ? "true" : "false"}>
+    <DndContext
+      id="page-map"
+      sensors={sensors}
+      onDragStart={onDragStart}
+      onDragEnd={onDragEnd}
+      onDragCancel={() => setDrag(null)}
+      accessibility={{ announcements }}
+    >
+      <div
+        className="flex flex-col gap-4"
+        data-testid="map-screen"
+        data-version={map.version}
+        data-ready={hydrated ? "true" : "false"}
+      >
         <div className="flex flex-wrap items-center gap-3 border-b border-ink/10 pb-3">
-          <div role="group" aria-label="View" className="inline-flex overflow-hidden rounded-md border border-ink/30 text-sm">
+          <div
+            role="group"
+            aria-label="View"
+            className="inline-flex overflow-hidden rounded-md border border-ink/30 text-sm"
+          >
             {(
               [
                 ["reader", "As read: spreads"],
@@ -218,19 +281,45 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
               className={`${inputClass} w-24 py-1`}
             />
           </label>
-          {!copiesValid ? <span className="text-xs text-persimmon-dark">Copies: a whole number from 1 to 100 000 (showing {COPIES_DEFAULT}).</span> : null}
+          {!copiesValid ? (
+            <span className="text-xs text-persimmon-dark">
+              Copies: a whole number from 1 to 100 000 (showing {COPIES_DEFAULT}).
+            </span>
+          ) : null}
           <span className="text-sm text-ink-soft">
-            {passes.passesPerCopy} passes per copy · {passes.passesPerRun.toLocaleString("en")} for {copies}
+            {passes.passesPerCopy} passes per copy · {passes.passesPerRun.toLocaleString("en")} for{" "}
+            {copies}
           </span>
-          <span className="ml-auto text-xs text-ink-faint" aria-live="polite" data-testid="map-saving">
-            {saving ? "Saving…" : query.isFetching ? "Checking for changes…" : `Version ${map.version}`}
+          <span
+            className="ml-auto text-xs text-ink-faint"
+            aria-live="polite"
+            data-testid="map-saving"
+          >
+            {saving
+              ? "Saving…"
+              : query.isFetching
+                ? "Checking for changes…"
+                : `Version ${map.version}`}
           </span>
           {map.canEdit ? (
             <>
-              <Button type="button" variant="accent" onClick={askProposal} busy={proposalBusy} disabled={proposal !== null || saving} data-testid="propose">
+              <Button
+                type="button"
+                variant="accent"
+                onClick={askProposal}
+                busy={proposalBusy}
+                disabled={proposal !== null || saving}
+                data-testid="propose"
+              >
                 {proposalBusy ? "Working it out…" : "Propose a layout"}
               </Button>
-              <Button type="button" variant="quiet" onClick={sendNotices} busy={noticesBusy} data-testid="send-notices">
+              <Button
+                type="button"
+                variant="quiet"
+                onClick={sendNotices}
+                busy={noticesBusy}
+                data-testid="send-notices"
+              >
                 E-mail contributors their pages
               </Button>
             </>
@@ -244,10 +333,16 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
         ) : null}
         {feedback ? (
           <div data-testid="map-feedback" data-tone={feedback.tone} aria-live="polite">
-            <Notice tone={feedback.tone === "info" ? "info" : feedback.tone === "warn" ? "warn" : "error"}>
+            <Notice
+              tone={feedback.tone === "info" ? "info" : feedback.tone === "warn" ? "warn" : "error"}
+            >
               <div className="flex items-start justify-between gap-3">
                 <span>{feedback.text}</span>
-                <button type="button" className="text-xs underline" onClick={() => setFeedback(null)}>
+                <button
+                  type="button"
+                  className="text-xs underline"
+                  onClick={() => setFeedback(null)}
+                >
                   Dismiss
                 </button>
               </div>
@@ -260,12 +355,23 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
           </Notice>
         ) : null}
         {proposal ? (
-          <ProposalPanel answer={proposal} pieces={pieces} busy={proposalBusy} onAccept={acceptProposal} onDiscard={() => setProposal(null)} />
+          <ProposalPanel
+            answer={proposal}
+            pieces={pieces}
+            busy={proposalBusy}
+            onAccept={acceptProposal}
+            onDiscard={() => setProposal(null)}
+          />
         ) : null}
 
         <div className="grid gap-5 lg:grid-cols-[13rem_minmax(0,1fr)_17rem]">
           <div className="flex flex-col gap-4">
-            <Tray pieces={waiting} leftOut={leftOut} canEdit={editable} onPlace={(pieceId) => setDialog({ mode: "place", pieceId })} />
+            <Tray
+              pieces={waiting}
+              leftOut={leftOut}
+              canEdit={editable}
+              onPlace={(pieceId) => setDialog({ mode: "place", pieceId })}
+            />
           </div>
           <div className="min-w-0">
             {view === "reader" ? (
@@ -280,7 +386,13 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
                 onSelect={setSelectedPage}
               />
             ) : (
-              <SheetView state={shown} pieces={pieces} passes={passes} creepMm={map.creepMm} coverStock={map.anthology.coverStock} />
+              <SheetView
+                state={shown}
+                pieces={pieces}
+                passes={passes}
+                creepMm={map.creepMm}
+                coverStock={map.anthology.coverStock}
+              />
             )}
           </div>
           <div className="flex flex-col gap-5">
@@ -302,18 +414,33 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
                 setSelectedPage(page);
               }}
             />
-            {editable ? <ResizeForm key={shown.pageCount} pageCount={shown.pageCount} maxPages={shown.maxPages} onChange={send} /> : null}
+            {editable ? (
+              <ResizeForm
+                key={shown.pageCount}
+                pageCount={shown.pageCount}
+                maxPages={shown.maxPages}
+                onChange={send}
+              />
+            ) : null}
             <HistoryPanel events={map.events} />
           </div>
         </div>
       </div>
       <DragOverlay>
         {drag ? (
-          <div className="rounded-md border border-teal bg-paper px-3 py-2 text-sm font-semibold shadow-lg">{title(drag.pieceId)}</div>
+          <div className="rounded-md border border-teal bg-paper px-3 py-2 text-sm font-semibold shadow-lg">
+            {title(drag.pieceId)}
+          </div>
         ) : null}
       </DragOverlay>
       {dialog && dialogPiece ? (
-        <PlaceDialog mode={dialog.mode} piece={dialogPiece} state={map.state} onConfirm={send} onClose={() => setDialog(null)} />
+        <PlaceDialog
+          mode={dialog.mode}
+          piece={dialogPiece}
+          state={map.state}
+          onConfirm={send}
+          onClose={() => setDialog(null)}
+        />
       ) : null}
     </DndContext>
   );

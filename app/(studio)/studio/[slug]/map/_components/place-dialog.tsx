@@ -58,7 +58,12 @@ export function PlaceDialog({
     else setError("The change was not saved; the message above the map says why.");
   };
 
-  const shape = piece.kind === "spread" ? "a spread: it starts on a left (even) page" : piece.length > 1 ? `a run of ${piece.length} pages in order` : "one page";
+  const shape =
+    piece.kind === "spread"
+      ? "a spread: it starts on a left (even) page"
+      : piece.length > 1
+        ? `a run of ${piece.length} pages in order`
+        : "one page";
   return (
     <dialog
       ref={ref}
@@ -94,13 +99,16 @@ export function PlaceDialog({
             >
               {starts.map((p) => (
                 <option key={p} value={p}>
-                  {spanLabel(p, piece.length)[0]!.toUpperCase() + spanLabel(p, piece.length).slice(1)}
+                  {spanLabel(p, piece.length)[0]!.toUpperCase() +
+                    spanLabel(p, piece.length).slice(1)}
                 </option>
               ))}
             </select>
           </div>
         ) : (
-          <p className="text-sm text-persimmon-dark">There is no free place for it now: free some pages, or add 4 pages.</p>
+          <p className="text-sm text-persimmon-dark">
+            There is no free place for it now: free some pages, or add 4 pages.
+          </p>
         )}
         <div className="flex flex-col gap-1">
           <label htmlFor={`${id}-typed`} className="text-sm font-semibold">
@@ -121,7 +129,12 @@ export function PlaceDialog({
           />
         </div>
         {error ? (
-          <p id={`${id}-error`} data-testid="place-error" role="status" className="text-sm font-semibold text-persimmon-dark">
+          <p
+            id={`${id}-error`}
+            data-testid="place-error"
+            role="status"
+            className="text-sm font-semibold text-persimmon-dark"
+          >
             {error}
           </p>
         ) : null}

@@ -19,12 +19,17 @@ export function ProposalPanel({
   const { proposal } = answer;
   const title = (id: number) => pieces.get(id)?.title ?? `piece ${id}`;
   return (
-    <section aria-labelledby="proposal-title" data-testid="proposal-panel" className="flex flex-col gap-2 rounded-md border-2 border-dashed border-teal bg-teal-light/30 p-4 text-sm">
+    <section
+      aria-labelledby="proposal-title"
+      data-testid="proposal-panel"
+      className="flex flex-col gap-2 rounded-md border-2 border-dashed border-teal bg-teal-light/30 p-4 text-sm"
+    >
       <h2 id="proposal-title" className="text-lg font-semibold">
         Proposed layout (not saved yet)
       </h2>
       <p data-testid="proposal-passes">
-        Passes per copy: <strong>{proposal.passesBefore}</strong> now, <strong>{proposal.passesAfter}</strong> with this proposal (
+        Passes per copy: <strong>{proposal.passesBefore}</strong> now,{" "}
+        <strong>{proposal.passesAfter}</strong> with this proposal (
         {answer.passes.passesPerRun.toLocaleString("en")} for {answer.copies} copies).
       </p>
       {proposal.placed.length ? (
@@ -33,7 +38,8 @@ export function ProposalPanel({
           <ul className="list-disc pl-5" data-testid="proposal-placed">
             {proposal.placed.map((p) => (
               <li key={p.pieceId}>
-                {title(p.pieceId)}: {p.pages.length === 1 ? `page ${p.pages[0]}` : `pages ${p.pages.join(", ")}`}
+                {title(p.pieceId)}:{" "}
+                {p.pages.length === 1 ? `page ${p.pages[0]}` : `pages ${p.pages.join(", ")}`}
               </li>
             ))}
           </ul>
@@ -60,7 +66,10 @@ export function ProposalPanel({
           ))}
         </ul>
       ) : null}
-      <p className="text-xs text-ink-faint">The map below shows the proposal. Accepting saves it as one change; discarding leaves the map as it was.</p>
+      <p className="text-xs text-ink-faint">
+        The map below shows the proposal. Accepting saves it as one change; discarding leaves the
+        map as it was.
+      </p>
       <div className="flex gap-2">
         {proposal.placed.length ? (
           <Button type="button" onClick={onAccept} busy={busy} data-testid="proposal-accept">

@@ -31,8 +31,13 @@ export function SheetView({
   const Side = ({ side }: { side: MapSheetSide }) => {
     const count = sideOf.get(side.key);
     return (
-      <div className="flex flex-col gap-1 rounded border border-ink/15 bg-white/60 p-2" data-testid={`sheet-side-${side.key}`}>
-        <p className="text-xs font-semibold uppercase tracking-wide text-ink-soft">{side.side === "front" ? "Front (outside)" : "Back (inside)"}</p>
+      <div
+        className="flex flex-col gap-1 rounded border border-ink/15 bg-white/60 p-2"
+        data-testid={`sheet-side-${side.key}`}
+      >
+        <p className="text-xs font-semibold uppercase tracking-wide text-ink-soft">
+          {side.side === "front" ? "Front (outside)" : "Back (inside)"}
+        </p>
         <div className="flex gap-1">
           {side.pages.map((page) => (
             <div key={page} className="flex-1 rounded bg-paper px-2 py-1 text-xs">
@@ -48,7 +53,9 @@ export function SheetView({
           </span>
         </p>
         {count && count.missingInks.length ? (
-          <p className="text-xs text-persimmon-dark">Not on the press: {inkList(count.missingInks)}</p>
+          <p className="text-xs text-persimmon-dark">
+            Not on the press: {inkList(count.missingInks)}
+          </p>
         ) : null}
       </div>
     );
@@ -79,17 +86,28 @@ export function SheetView({
       </dl>
       <p className="text-xs text-ink-soft">{passes.explanation}</p>
       {plan.paddingPages.length ? (
-        <p className="text-xs text-persimmon-dark">Laid out as if padded to {plan.laidOutPages} pages: {plan.paddingPages.join(", ")} would print blank.</p>
+        <p className="text-xs text-persimmon-dark">
+          Laid out as if padded to {plan.laidOutPages} pages: {plan.paddingPages.join(", ")} would
+          print blank.
+        </p>
       ) : null}
       <ol className="flex flex-col gap-3">
         {plan.sheets.map((sheet) => {
           const creep = creepMm[sheet.sheet - 1];
           return (
-            <li key={sheet.sheet} className="rounded-md border border-ink/20 p-3" data-testid={`sheet-${sheet.sheet}`}>
+            <li
+              key={sheet.sheet}
+              className="rounded-md border border-ink/20 p-3"
+              data-testid={`sheet-${sheet.sheet}`}
+            >
               <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
                 <h3 className="text-base font-semibold">
                   Sheet {sheet.sheet}
-                  {sheet.sheet === 1 ? (coverStock === "separate" ? " · cover stock" : " · outermost") : ""}
+                  {sheet.sheet === 1
+                    ? coverStock === "separate"
+                      ? " · cover stock"
+                      : " · outermost"
+                    : ""}
                   {sheet.centre ? " · centre" : ""}
                 </h3>
                 <p className="text-xs text-ink-soft" data-testid={`creep-${sheet.sheet}`}>

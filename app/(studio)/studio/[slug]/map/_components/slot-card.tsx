@@ -28,7 +28,11 @@ export function SlotCard({
 }) {
   const { setNodeRef, isOver } = useDroppable({ id: pageDropId(slot.page), disabled: !canEdit });
   const errors = messages.filter((m) => m.severity === "error");
-  const tone = errors.length ? "border-persimmon" : messages.length ? "border-mustard" : "border-ink/20";
+  const tone = errors.length
+    ? "border-persimmon"
+    : messages.length
+      ? "border-mustard"
+      : "border-ink/20";
   const fill = slot.reservation ? "bg-paper-deep" : piece ? "bg-white" : "bg-white/40";
   const what = piece
     ? `${piece.title}${piece.length > 1 ? `, its page ${slot.piecePageIndex} of ${piece.length}` : ""}`
@@ -58,29 +62,62 @@ export function SlotCard({
         data-testid={`slot-select-${slot.page}`}
       >
         <span>p. {slot.page}</span>
-        {slot.locked ? <span aria-hidden="true" title="Locked">🔒</span> : null}
+        {slot.locked ? (
+          <span aria-hidden="true" title="Locked">
+            🔒
+          </span>
+        ) : null}
       </button>
-      {slot.reservation ? <p className="font-semibold text-ink-soft">{RESERVATION_LABELS[slot.reservation]}</p> : null}
-      {piece ? <PlacedChip piece={piece} slot={slot} canEdit={canEdit && !slot.locked} onSelect={onSelect} /> : null}
+      {slot.reservation ? (
+        <p className="font-semibold text-ink-soft">{RESERVATION_LABELS[slot.reservation]}</p>
+      ) : null}
+      {piece ? (
+        <PlacedChip
+          piece={piece}
+          slot={slot}
+          canEdit={canEdit && !slot.locked}
+          onSelect={onSelect}
+        />
+      ) : null}
       {!piece && !slot.reservation ? <p className="text-ink-faint">Empty</p> : null}
       {messages.length ? (
         <ul className="mt-auto flex flex-col gap-0.5" data-testid={`slot-rules-${slot.page}`}>
           {messages.slice(0, 2).map((m, i) => (
-            <li key={i} className={`line-clamp-2 leading-tight ${m.severity === "error" ? "text-persimmon-dark" : "text-ink-soft"}`} title={m.message}>
+            <li
+              key={i}
+              className={`line-clamp-2 leading-tight ${m.severity === "error" ? "text-persimmon-dark" : "text-ink-soft"}`}
+              title={m.message}
+            >
               {m.severity === "error" ? "Problem: " : "Note: "}
               {m.message}
             </li>
           ))}
-          {messages.length > 2 ? <li className="text-ink-faint">and {messages.length - 2} more</li> : null}
+          {messages.length > 2 ? (
+            <li className="text-ink-faint">and {messages.length - 2} more</li>
+          ) : null}
         </ul>
       ) : null}
     </div>
   );
 }
 
-function PlacedChip({ piece, slot, canEdit, onSelect }: { piece: PieceView; slot: MapSlot; canEdit: boolean; onSelect: (page: number) => void }) {
+function PlacedChip({
+  piece,
+  slot,
+  canEdit,
+  onSelect,
+}: {
+  piece: PieceView;
+  slot: MapSlot;
+  canEdit: boolean;
+  onSelect: (page: number) => void;
+}) {
   const data: DragData = { pieceId: piece.id, from: "map", index: slot.piecePageIndex ?? 1 };
-  const { attributes, listeners, setNodeRef, isDragging } = useDraggable({ id: `map-piece-${piece.id}-${slot.page}`, data, disabled: !canEdit });
+  const { attributes, listeners, setNodeRef, isDragging } = useDraggable({
+    id: `map-piece-${piece.id}-${slot.page}`,
+    data,
+    disabled: !canEdit,
+  });
   return (
     <div
       ref={setNodeRef}

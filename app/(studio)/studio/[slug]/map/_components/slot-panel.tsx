@@ -25,7 +25,11 @@ export function SlotPanel({
   onClose: () => void;
 }) {
   return (
-    <section aria-labelledby="slot-panel-title" data-testid="slot-panel" className="flex flex-col gap-2 rounded-md border border-teal/40 bg-teal-light/30 p-3 text-sm">
+    <section
+      aria-labelledby="slot-panel-title"
+      data-testid="slot-panel"
+      className="flex flex-col gap-2 rounded-md border border-teal/40 bg-teal-light/30 p-3 text-sm"
+    >
       <div className="flex items-baseline justify-between">
         <h2 id="slot-panel-title" className="text-lg font-semibold">
           Page {slot.page}
@@ -39,16 +43,24 @@ export function SlotPanel({
           <p className="font-semibold">{piece.title}</p>
           <p className="text-xs text-ink-soft">
             by {piece.contributorName}
-            {piece.length > 1 ? ` · its page ${slot.piecePageIndex} of ${piece.length}` : ""} · {inkList(piece.inks)}
+            {piece.length > 1 ? ` · its page ${slot.piecePageIndex} of ${piece.length}` : ""} ·{" "}
+            {inkList(piece.inks)}
           </p>
         </div>
       ) : (
-        <p className="text-ink-soft">{slot.reservation ? `Kept for: ${RESERVATION_LABELS[slot.reservation]}` : "No piece on this page."}</p>
+        <p className="text-ink-soft">
+          {slot.reservation
+            ? `Kept for: ${RESERVATION_LABELS[slot.reservation]}`
+            : "No piece on this page."}
+        </p>
       )}
       {messages.length ? (
         <ul className="flex flex-col gap-1 text-xs">
           {messages.map((m, i) => (
-            <li key={i} className={m.severity === "error" ? "text-persimmon-dark" : "text-ink-soft"}>
+            <li
+              key={i}
+              className={m.severity === "error" ? "text-persimmon-dark" : "text-ink-soft"}
+            >
               {m.severity === "error" ? "Problem: " : "Note: "}
               {m.message}
             </li>
@@ -66,7 +78,13 @@ export function SlotPanel({
             className={`${inputClass} bg-white`}
             value={slot.reservation ?? ""}
             disabled={slot.locked || slot.pieceId !== null}
-            onChange={(e) => onChange({ op: "reserve", page: slot.page, reservation: e.target.value === "" ? null : (e.target.value as SlotReservation) })}
+            onChange={(e) =>
+              onChange({
+                op: "reserve",
+                page: slot.page,
+                reservation: e.target.value === "" ? null : (e.target.value as SlotReservation),
+              })
+            }
           >
             <option value="">Nothing: free for a piece</option>
             {SLOT_RESERVATIONS.map((r) => (
@@ -75,8 +93,14 @@ export function SlotPanel({
               </option>
             ))}
           </select>
-          {slot.pieceId !== null ? <p className="text-xs text-ink-faint">Take the piece off to keep the page for something else.</p> : null}
-          {slot.locked ? <p className="text-xs text-ink-faint">Unlock the page to change it.</p> : null}
+          {slot.pieceId !== null ? (
+            <p className="text-xs text-ink-faint">
+              Take the piece off to keep the page for something else.
+            </p>
+          ) : null}
+          {slot.locked ? (
+            <p className="text-xs text-ink-faint">Unlock the page to change it.</p>
+          ) : null}
           <div className="flex flex-wrap gap-2">
             <Button
               type="button"
@@ -88,7 +112,13 @@ export function SlotPanel({
             </Button>
             {piece ? (
               <>
-                <Button type="button" variant="quiet" data-testid="slot-move" disabled={slot.locked} onClick={() => onMove(piece.id)}>
+                <Button
+                  type="button"
+                  variant="quiet"
+                  data-testid="slot-move"
+                  disabled={slot.locked}
+                  onClick={() => onMove(piece.id)}
+                >
                   Move…
                 </Button>
                 <Button

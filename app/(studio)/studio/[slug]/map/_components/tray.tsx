@@ -35,7 +35,9 @@ export function Tray({
       ) : (
         <>
           {canEdit ? (
-            <p className="text-xs text-ink-faint">Drag a piece onto a page, or focus it and press Enter to choose a page.</p>
+            <p className="text-xs text-ink-faint">
+              Drag a piece onto a page, or focus it and press Enter to choose a page.
+            </p>
           ) : null}
           <ul className="flex flex-col gap-2">
             {pieces.map((piece) => (
@@ -44,10 +46,14 @@ export function Tray({
           </ul>
         </>
       )}
-      {canEdit ? <p className="text-xs text-ink-faint">Drop a placed piece here to take it off the map.</p> : null}
+      {canEdit ? (
+        <p className="text-xs text-ink-faint">Drop a placed piece here to take it off the map.</p>
+      ) : null}
       {leftOut.length > 0 ? (
         <details className="text-sm">
-          <summary className="cursor-pointer text-ink-soft">Left out of this issue ({leftOut.length})</summary>
+          <summary className="cursor-pointer text-ink-soft">
+            Left out of this issue ({leftOut.length})
+          </summary>
           <ul className="mt-1 flex flex-col gap-1">
             {leftOut.map((piece) => (
               <li key={piece.id}>
@@ -61,9 +67,21 @@ export function Tray({
   );
 }
 
-function TrayPiece({ piece, canEdit, onPlace }: { piece: PieceView; canEdit: boolean; onPlace: (pieceId: number) => void }) {
+function TrayPiece({
+  piece,
+  canEdit,
+  onPlace,
+}: {
+  piece: PieceView;
+  canEdit: boolean;
+  onPlace: (pieceId: number) => void;
+}) {
   const data: DragData = { pieceId: piece.id, from: "tray", index: 1 };
-  const { attributes, listeners, setNodeRef, isDragging } = useDraggable({ id: `tray-piece-${piece.id}`, data, disabled: !canEdit });
+  const { attributes, listeners, setNodeRef, isDragging } = useDraggable({
+    id: `tray-piece-${piece.id}`,
+    data,
+    disabled: !canEdit,
+  });
   const onKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
     if (event.key === "Enter" && canEdit) {
       event.preventDefault();
@@ -86,7 +104,12 @@ function TrayPiece({ piece, canEdit, onPlace }: { piece: PieceView; canEdit: boo
       >
         <p className="font-semibold leading-tight">{piece.title}</p>
         <p className="text-xs text-ink-soft">
-          {piece.contributorName} · {piece.kind === "single" ? "1 page" : piece.kind === "spread" ? "spread, 2 pages" : `run of ${piece.length} pages`}
+          {piece.contributorName} ·{" "}
+          {piece.kind === "single"
+            ? "1 page"
+            : piece.kind === "spread"
+              ? "spread, 2 pages"
+              : `run of ${piece.length} pages`}
         </p>
         <p className="text-xs text-ink-faint">{inkList(piece.inks)}</p>
       </div>

@@ -26,7 +26,8 @@ export function useMapQuery(slug: string, initial: MapPayload) {
     queryFn: async () => {
       const response = await fetch(`/api/anthologies/${slug}/map`, { cache: "no-store" });
       const body = await readBody<MapPayload & { error?: string }>(response);
-      if (!response.ok || !body) throw new Error(body?.error ?? `The map could not be loaded (${response.status}).`);
+      if (!response.ok || !body)
+        throw new Error(body?.error ?? `The map could not be loaded (${response.status}).`);
       return body;
     },
     refetchOnWindowFocus: true,

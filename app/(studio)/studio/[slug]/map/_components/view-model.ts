@@ -8,7 +8,12 @@ export type PieceView = MapPiece & { contributorName: string; length: number };
 /** Pieces by id with who made them and how many pages they take. */
 export function piecesById(state: MapState, cards: MapPieceCard[]): Map<number, PieceView> {
   const names = new Map(cards.map((c) => [c.id, c.contributorName]));
-  return new Map(state.pieces.map((p) => [p.id, { ...p, contributorName: names.get(p.id) ?? "A contributor", length: pieceLength(p) }]));
+  return new Map(
+    state.pieces.map((p) => [
+      p.id,
+      { ...p, contributorName: names.get(p.id) ?? "A contributor", length: pieceLength(p) },
+    ]),
+  );
 }
 
 /** Rule messages by the page they concern (empty-page notes left out: an empty slot already says so). */

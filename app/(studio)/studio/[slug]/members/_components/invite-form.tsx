@@ -28,7 +28,9 @@ export function InviteForm({ slug, roles }: { slug: string; roles: Role[] }) {
     });
     const body = await response.json();
     if (!response.ok) {
-      for (const [name, messages] of Object.entries((body.fields ?? {}) as Record<string, string[]>)) {
+      for (const [name, messages] of Object.entries(
+        (body.fields ?? {}) as Record<string, string[]>,
+      )) {
         setError(name as keyof InviteValues, { message: messages[0] ?? "Check this field" });
       }
       setResult({ tone: "error", text: body.error ?? "The invitation was not sent." });
@@ -41,10 +43,19 @@ export function InviteForm({ slug, roles }: { slug: string; roles: Role[] }) {
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-3">
       <Field id="invite-email" label="E-mail" error={e.email?.message}>
-        <input {...register("email")} {...describedBy("invite-email", e.email?.message)} type="email" className={`${inputClass} w-72`} />
+        <input
+          {...register("email")}
+          {...describedBy("invite-email", e.email?.message)}
+          type="email"
+          className={`${inputClass} w-72`}
+        />
       </Field>
       <Field id="invite-role" label="Role">
-        <select {...register("role")} {...describedBy("invite-role")} className={`${inputClass} bg-white`}>
+        <select
+          {...register("role")}
+          {...describedBy("invite-role")}
+          className={`${inputClass} bg-white`}
+        >
           {roles.map((r) => (
             <option key={r} value={r}>
               {ROLE_LABELS[r]}

@@ -24,6 +24,12 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ slu
     return Response.json(body, { status: 409 });
   }
   const proposal = proposePlacement(state, { copies });
-  const body: ProposalAnswer = { version, copies, proposal, check: checkMap(proposal.state), passes: countPasses(proposal.state, copies) };
+  const body: ProposalAnswer = {
+    version,
+    copies,
+    proposal,
+    check: checkMap(proposal.state),
+    passes: countPasses(proposal.state, copies),
+  };
   return Response.json(body);
 });
