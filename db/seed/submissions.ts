@@ -2,7 +2,8 @@
  * Demo submissions to the Low Tide Almanac's open call: invented artwork drawn with sharp, stored
  * through the upload service (the local fake must be running) and put through the same spec-check
  * pipeline as a browser upload. Some files pass, some have findings (no bleed, low resolution,
- * colour for the duplicator); one page has two versions; the pieces sit in several statuses.
+ * colour for the duplicator); one page has two versions; the pieces sit in several statuses, and the
+ * accepted ones fill the demo page map.
  * Idempotent: a piece is matched by its contributor and title and never seeded twice.
  */
 import { and, eq } from "drizzle-orm";
@@ -67,6 +68,101 @@ const art = (
   colour = false,
 ): Art => ({ name, ...size, colour, svg });
 
+/** A simple greyscale study for the accepted demo pieces: bands of "water", scattered finds and a label. */
+const study = (label: string, variant: number) => (w: number, h: number) => `
+  <rect width="${w}" height="${h}" fill="#f4f4f4"/>
+  ${Array.from({ length: 6 }, (_, i) => `<path d="M0 ${h * (0.35 + i * 0.1)} Q ${w / 2} ${h * (0.3 + i * 0.1 + (variant % 3) * 0.02)}, ${w} ${h * (0.36 + i * 0.1)}" stroke="#333" stroke-width="${10 + ((i + variant) % 3) * 6}" fill="none"/>`).join("")}
+  ${Array.from({ length: 8 + variant }, (_, i) => `<circle cx="${(w * ((i * 37 + variant * 11) % 100)) / 100}" cy="${h * (0.2 + ((i * 13) % 10) / 60)}" r="${14 + (i % 5) * 8}" fill="#111"/>`).join("")}
+  <text x="${w / 2}" y="${h * 0.14}" font-family="serif" font-size="${w / 13}" text-anchor="middle" fill="#111">${label}</text>`;
+
+const ACCEPTED_BY = { to: "accepted" as const, by: "odile@marrowbend.test" };
+
+/** Accepted pieces for the demo page map, every page a passing greyscale file. */
+const ACCEPTED: DemoPiece[] = [
+  [
+    "tomasz",
+    "Tomasz Vireo",
+    "Bladderwrack Census",
+    "spread",
+    ["black", "teal"],
+    2,
+    "Counted along one metre of rope.",
+  ],
+  [
+    "bea",
+    "Bea Okonkwo-Hale",
+    "The Limpet Clock",
+    "single",
+    ["black"],
+    1,
+    "Limpets keep their own time.",
+  ],
+  ["imke", "Imke Sallow", "Mudflat at Six", "single", ["teal"], 1, "Low water on a still evening."],
+  [
+    "bea",
+    "Bea Okonkwo-Hale",
+    "Hermit Crab Moving Day",
+    "run",
+    ["black"],
+    3,
+    "A three-page comic about a crab trading up.",
+  ],
+  [
+    "tomasz",
+    "Tomasz Vireo",
+    "Low Water Mark",
+    "single",
+    ["teal"],
+    1,
+    "The line the sea draws twice a day.",
+  ],
+  [
+    "imke",
+    "Imke Sallow",
+    "Sea Glass Inventory",
+    "single",
+    ["black", "teal"],
+    1,
+    "Every piece from one morning's walk.",
+  ],
+  [
+    "tomasz",
+    "Tomasz Vireo",
+    "What the Heron Kept",
+    "single",
+    ["black"],
+    1,
+    "A heron's larder, drawn from a hide.",
+  ],
+  [
+    "bea",
+    "Bea Okonkwo-Hale",
+    "Tide Table for Insomniacs",
+    "spread",
+    ["teal"],
+    2,
+    "High and low water for people awake at 3 a.m.",
+  ],
+].map(([who, name, title, kind, inks, pages, statement], n) => ({
+  email: `${who}@lanternfield.test`,
+  title: title as string,
+  kind: kind as PieceKind,
+  inks: inks as string[],
+  creditLine: name as string,
+  statement: statement as string,
+  altTexts: [],
+  pages: Array.from({ length: pages as number }, (_, p) => [
+    art(
+      `${String(title)
+        .toLowerCase()
+        .replace(/[^a-z]+/g, "-")}-${p + 1}.png`,
+      FULL,
+      study(String(title).split(" ")[0] ?? "", n + p),
+    ),
+  ]),
+  status: { ...ACCEPTED_BY, message: "Accepted: it is going in the almanac." },
+}));
+
 const DEMO: DemoPiece[] = [
   {
     email: "bea@lanternfield.test",
@@ -130,6 +226,7 @@ const DEMO: DemoPiece[] = [
     altTexts: [],
     pages: [[art("bottle-1.png", FULL, bottle)], [art("bottle-2.png", FULL, bottle)], []],
   },
+  ...ACCEPTED,
 ];
 
 async function render(a: Art): Promise<Buffer> {
