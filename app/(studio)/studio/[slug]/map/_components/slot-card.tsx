@@ -63,9 +63,10 @@ export function SlotCard({
       >
         <span>p. {slot.page}</span>
         {slot.locked ? (
-          <span aria-hidden="true" title="Locked">
-            🔒
-          </span>
+          <svg viewBox="0 0 12 14" className="h-3 w-3 fill-ink-soft" aria-hidden="true">
+            <title>Locked</title>
+            <path d="M3 6V4a3 3 0 0 1 6 0v2h1a1 1 0 0 1 1 1v6a1 1 0 0 1-1 1H2a1 1 0 0 1-1-1V7a1 1 0 0 1 1-1h1Zm1.5 0h3V4a1.5 1.5 0 0 0-3 0v2Z" />
+          </svg>
         ) : null}
       </button>
       {slot.reservation ? (
