@@ -6,8 +6,9 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { showServerFieldErrors } from "@/components/ui/server-field-errors";
 import { emailLinkSchema, signInSchema } from "@/lib/validations/account";
-import { emailLinkAction, passwordSignInAction, type FormResult } from "../actions";
+import { emailLinkAction, passwordSignInAction } from "../actions";
 
 type PasswordForm = { email: string; password: string };
 
@@ -21,15 +22,6 @@ export function SignInForms({ callbackUrl }: { callbackUrl?: string }) {
   );
 }
 
-function applyServerErrors<T extends Record<string, unknown>>(
-  result: FormResult,
-  setError: (name: keyof T & string, e: { message: string }) => void,
-) {
-  for (const [name, messages] of Object.entries(result?.fields ?? {})) {
-    setError(name as keyof T & string, { message: messages[0] ?? "Check this field" });
-  }
-}
-
 function PasswordSignIn({ callbackUrl }: { callbackUrl?: string }) {
   const [pending, startTransition] = useTransition();
   const [formError, setFormError] = useState<string>();
@@ -41,7 +33,7 @@ function PasswordSignIn({ callbackUrl }: { callbackUrl?: string }) {
       setFormError(undefined);
       const result = await passwordSignInAction(values, callbackUrl);
       if (result?.error) setFormError(result.error);
-      applyServerErrors<PasswordForm>(result, setError);
+      showServerFieldErrors(setError, result?.fields);
     }),
   );
   const e = formState.errors;
@@ -96,7 +88,7 @@ function EmailLinkSignIn({ callbackUrl }: { callbackUrl?: string }) {
       setFormError(undefined);
       const result = await emailLinkAction(values, callbackUrl);
       if (result?.error) setFormError(result.error);
-      applyServerErrors<{ email: string }>(result, setError);
+      showServerFieldErrors(setError, result?.fields);
     }),
   );
   return (

@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { signUpSchema, type SignUpInput } from "@/lib/validations/account";
 import { signUpAction } from "../../sign-in/actions";
+import { showServerFieldErrors } from "@/components/ui/server-field-errors";
 
 /** Name, e-mail and password; field errors come from the shared schema and from the server. */
 export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
@@ -17,9 +18,7 @@ export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
   const onSubmit = handleSubmit((values) =>
     startTransition(async () => {
       const result = await signUpAction(values, callbackUrl);
-      for (const [name, messages] of Object.entries(result?.fields ?? {})) {
-        setError(name as keyof SignUpInput, { message: messages[0] ?? "Check this field" });
-      }
+      showServerFieldErrors(setError, result?.fields);
     }),
   );
   const e = formState.errors;

@@ -17,6 +17,7 @@ import {
   type AnthologyInput,
   type AnthologyParsed,
 } from "@/lib/validations/anthology";
+import { showServerFieldErrors } from "@/components/ui/server-field-errors";
 
 type FormValues = Omit<AnthologyInput, "inks"> & { inkRows: { name: string }[] };
 
@@ -82,11 +83,7 @@ export function AnthologyForm() {
       });
       const body = await response.json();
       if (!response.ok) {
-        for (const [name, messages] of Object.entries(
-          (body.fields ?? {}) as Record<string, string[]>,
-        )) {
-          setError(name as keyof FormValues, { message: messages[0] ?? "Check this field" });
-        }
+        showServerFieldErrors(setError, body.fields);
         setServerError(body.error ?? "The anthology was not saved.");
         return;
       }

@@ -15,6 +15,7 @@ import {
   type PieceInput,
   type PieceParsed,
 } from "@/lib/validations/piece";
+import { showServerFieldErrors } from "@/components/ui/server-field-errors";
 
 /** The new-piece form: what the piece is, its inks and credit; files are uploaded on the next screen. */
 export function PieceForm({
@@ -82,11 +83,7 @@ export function PieceForm({
       router.push(body.url);
       return;
     }
-    for (const [name, messages] of Object.entries(body.fields ?? {})) {
-      setError(name.split(".")[0] as keyof PieceInput, {
-        message: messages[0] ?? "Check this field",
-      });
-    }
+    showServerFieldErrors(setError, body.fields);
     setProblem(body.error ?? `The piece could not be saved (error ${response.status}).`);
   });
 

@@ -17,6 +17,7 @@ import {
   type CallInput,
   type CallParsed,
 } from "@/lib/validations/call";
+import { showServerFieldErrors } from "@/components/ui/server-field-errors";
 
 type Props = {
   slug: string;
@@ -109,11 +110,7 @@ export function CallForm({
       });
       const body = await response.json().catch(() => ({}));
       if (!response.ok) {
-        for (const [name, messages] of Object.entries(
-          (body.fields ?? {}) as Record<string, string[]>,
-        )) {
-          setError(name as keyof CallInput, { message: messages[0] ?? "Check this field" });
-        }
+        showServerFieldErrors(setError, body.fields);
         setNotice({ tone: "error", text: body.error ?? "The call was not saved." });
         return;
       }

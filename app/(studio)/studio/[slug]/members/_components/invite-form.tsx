@@ -9,6 +9,7 @@ import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { ROLE_LABELS, type Role } from "@/lib/domain";
 import { inviteSchema } from "@/lib/validations/anthology";
+import { showServerFieldErrors } from "@/components/ui/server-field-errors";
 
 type InviteValues = z.input<typeof inviteSchema>;
 
@@ -28,11 +29,7 @@ export function InviteForm({ slug, roles }: { slug: string; roles: Role[] }) {
     });
     const body = await response.json();
     if (!response.ok) {
-      for (const [name, messages] of Object.entries(
-        (body.fields ?? {}) as Record<string, string[]>,
-      )) {
-        setError(name as keyof InviteValues, { message: messages[0] ?? "Check this field" });
-      }
+      showServerFieldErrors(setError, body.fields);
       setResult({ tone: "error", text: body.error ?? "The invitation was not sent." });
       return;
     }
