@@ -732,8 +732,8 @@ describe("SMTP sink and outbox API", () => {
     await clearMessages(outbox());
     await transport.sendMail({
       from: "Quireline <no-reply@quireline.test>",
-      to: "tomasz.varga@riso.test",
-      cc: "Hollis.Brandt@riso.test",
+      to: "tomasz.varga@saltmarsh.test",
+      cc: "Hollis.Brandt@saltmarsh.test",
       bcc: "payouts@quireline.test",
       subject: "Contributor copies are on their way",
       text: "Three copies of Brackish Tides #4 ship from Port Ellery on Friday.",
@@ -752,13 +752,13 @@ describe("SMTP sink and outbox API", () => {
     ]);
     expect(all[0]!.to).toEqual(
       expect.arrayContaining([
-        "tomasz.varga@riso.test",
-        "Hollis.Brandt@riso.test",
+        "tomasz.varga@saltmarsh.test",
+        "Hollis.Brandt@saltmarsh.test",
         "payouts@quireline.test",
       ]),
     );
     expect(
-      (await listMessages({ ...outbox(), to: "HOLLIS.BRANDT@RISO.TEST" })).map((m) => m.id),
+      (await listMessages({ ...outbox(), to: "HOLLIS.BRANDT@SALTMARSH.TEST" })).map((m) => m.id),
     ).toEqual([all[0]!.id]);
     expect(
       (await listMessages({ ...outbox(), to: "payouts@quireline.test" })).map((m) => m.id),
