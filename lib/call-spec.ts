@@ -4,10 +4,10 @@
  * Pure; shown on the studio call page and the public call page.
  */
 import type { PrintMethod } from "@/lib/domain";
-import { formatLength } from "@/lib/format";
+import { formatLength, mmText } from "@/lib/format";
 import { bleedBoxOf, pixelsFor } from "@/lib/print/spec";
 import { findPreset } from "@/lib/print/sizes";
-import { mmToIn } from "@/lib/print/units";
+import { mmToIn, roundTo } from "@/lib/print/units";
 
 export interface CallSpecSource {
   trimPreset: string;
@@ -45,8 +45,8 @@ export function colourModeText(printMethod: PrintMethod, inks: readonly string[]
 }
 
 function sizeBothUnits(widthMm: number, heightMm: number, inchesFirst: boolean): string {
-  const mm = `${Number(widthMm.toFixed(2))} x ${Number(heightMm.toFixed(2))} mm`;
-  const inches = `${Number(mmToIn(widthMm).toFixed(3))} x ${Number(mmToIn(heightMm).toFixed(3))} in`;
+  const mm = `${mmText(widthMm)} x ${mmText(heightMm)} mm`;
+  const inches = `${roundTo(mmToIn(widthMm), 3)} x ${roundTo(mmToIn(heightMm), 3)} in`;
   return inchesFirst ? `${inches} (${mm})` : `${mm} (${inches})`;
 }
 
@@ -57,7 +57,7 @@ export function callSpecSummary(
 ): CallSpecSummary {
   const preset = findPreset(a.trimPreset);
   const inchesFirst = Boolean(preset?.inches);
-  const trimMm = `${Number(a.trimWidthMm.toFixed(2))} x ${Number(a.trimHeightMm.toFixed(2))} mm`;
+  const trimMm = `${mmText(a.trimWidthMm)} x ${mmText(a.trimHeightMm)} mm`;
   const presetName = preset
     ? `${preset.label}${a.trimWidthMm > a.trimHeightMm ? ", landscape" : ""}`
     : "";

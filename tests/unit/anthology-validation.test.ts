@@ -103,3 +103,18 @@ describe("anthology spec input", () => {
     expect(slugify("!!!")).toBe("anthology");
   });
 });
+
+describe("lengths shown to people", () => {
+  it("shows 1/8 in bleed as 3.175 mm, not a float-rounded 3.17", async () => {
+    const { formatLength, mmText } = await import("@/lib/format");
+    // NBS Circular 572: 1 in = 25.4 mm exactly, so 0.125 in = 3.175 mm and 8.5 in = 215.9 mm
+    expect(formatLength(inToMmForTest(0.125))).toBe("3.175 mm (0.125 in)");
+    expect(mmText(inToMmForTest(8.5))).toBe("215.9");
+    // ISO 216: A5 = 148 x 210 mm
+    expect(mmText(148)).toBe("148");
+  });
+});
+
+function inToMmForTest(inches: number): number {
+  return inches * 25.4;
+}
