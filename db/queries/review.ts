@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from "drizzle-orm";
 import { db, schema } from "@/db";
+import { fileVersionSummary } from "./submissions";
 import { PIECE_KINDS, PIECE_STATUS_LABELS, PIECE_STATUSES, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { simpleHtml } from "@/lib/mail";
@@ -318,19 +319,10 @@ export async function getPieceForReview(anthologyId: number, pieceId: number) {
     db.select().from(pp).where(eq(pp.pieceId, pieceId)).orderBy(asc(pp.pageIndex)),
     db
       .select({
-        id: fv.id,
-        piecePageId: fv.piecePageId,
-        versionNumber: fv.versionNumber,
-        fileName: fv.fileName,
-        mimeType: fv.mimeType,
-        sizeBytes: fv.sizeBytes,
-        verdict: fv.verdict,
-        report: fv.report,
-        hasThumbnail: sql<number>`${fv.thumbnailWebp} IS NOT NULL`,
+        ...fileVersionSummary,
         thumbnailWidthPx: fv.thumbnailWidthPx,
         thumbnailHeightPx: fv.thumbnailHeightPx,
         uploadedByName: uploader,
-        createdAt: fv.createdAt,
       })
       .from(fv)
       .innerJoin(pp, eq(pp.id, fv.piecePageId))

@@ -16,6 +16,20 @@ const p = schema.pieces;
 const pp = schema.piecePages;
 const fv = schema.fileVersions;
 
+/** The columns a screen shows for one file version: everything but the stored bytes. */
+export const fileVersionSummary = {
+  id: fv.id,
+  piecePageId: fv.piecePageId,
+  versionNumber: fv.versionNumber,
+  fileName: fv.fileName,
+  mimeType: fv.mimeType,
+  sizeBytes: fv.sizeBytes,
+  verdict: fv.verdict,
+  report: fv.report,
+  hasThumbnail: sql<number>`${fv.thumbnailWebp} IS NOT NULL`,
+  createdAt: fv.createdAt,
+};
+
 export type Call = CallRow;
 export type Piece = typeof p.$inferSelect;
 
@@ -248,18 +262,7 @@ export async function getPieceDetail(pieceId: number): Promise<PieceDetail | und
     .orderBy(asc(pp.pageIndex));
   const versions = pages.length
     ? await db
-        .select({
-          id: fv.id,
-          piecePageId: fv.piecePageId,
-          versionNumber: fv.versionNumber,
-          fileName: fv.fileName,
-          mimeType: fv.mimeType,
-          sizeBytes: fv.sizeBytes,
-          verdict: fv.verdict,
-          report: fv.report,
-          hasThumbnail: sql<number>`${fv.thumbnailWebp} IS NOT NULL`,
-          createdAt: fv.createdAt,
-        })
+        .select(fileVersionSummary)
         .from(fv)
         .where(
           inArray(
