@@ -2,7 +2,7 @@ import { expect, test } from "@playwright/test";
 import sharp from "sharp";
 import { utcToZonedLocal } from "../../lib/time-zones";
 import { demoAccount } from "../helpers/demo";
-import { signInWithPassword } from "./helpers";
+import { halfLetterAnthology, signInWithPassword } from "./helpers";
 
 const DAY = 86_400_000;
 const ZONE = "Europe/Lisbon";
@@ -15,24 +15,7 @@ test("a lead writes and opens a call; a stranger reads it and downloads the PNG 
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   const created = await page.request.post("/api/anthologies", {
-    data: {
-      title: `Breakwater Notes ${Date.now().toString(36)}`,
-      pressName: "Marrowbend Print Collective",
-      trimChoice: "half-letter",
-      orientation: "portrait",
-      unit: "in",
-      bleed: 0.125,
-      safeMargin: 0.25,
-      binding: "saddle-stitch",
-      pageCountTarget: 16,
-      maxPages: 32,
-      coverStock: "self",
-      paperGsm: 90,
-      printMethod: "duplicator",
-      inks: ["black", "teal"],
-      inksPerPass: 1,
-      minPpi: 300,
-    },
+    data: halfLetterAnthology(`Breakwater Notes ${Date.now().toString(36)}`),
   });
   expect(created.status()).toBe(201);
   const { slug } = (await created.json()).anthology as { slug: string };

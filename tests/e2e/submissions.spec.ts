@@ -7,7 +7,7 @@ import { expect, test, type APIRequestContext } from "@playwright/test";
 import sharp from "sharp";
 import { demoAccount, uniqueEmail } from "../helpers/demo";
 import { waitForMessage } from "../helpers/outbox";
-import { signInWithPassword } from "./helpers";
+import { halfLetterAnthology, signInWithPassword } from "./helpers";
 
 let workDir: string;
 
@@ -57,24 +57,12 @@ async function json(
 /** Odile makes a fresh half-letter anthology with a call that opened yesterday, through the app's own API. */
 async function openFreshCall(request: APIRequestContext): Promise<string> {
   const title = `Estuary Notes ${Date.now().toString(36)}`;
-  const { anthology } = await json(request, "POST", "/api/anthologies", {
-    title,
-    pressName: "Marrowbend Print Collective",
-    trimChoice: "half-letter",
-    orientation: "portrait",
-    unit: "in",
-    bleed: 0.125,
-    safeMargin: 0.25,
-    binding: "saddle-stitch",
-    pageCountTarget: 16,
-    maxPages: 32,
-    coverStock: "self",
-    paperGsm: 90,
-    printMethod: "duplicator",
-    inks: ["black"],
-    inksPerPass: 1,
-    minPpi: 300,
-  });
+  const { anthology } = await json(
+    request,
+    "POST",
+    "/api/anthologies",
+    halfLetterAnthology(title, ["black"]),
+  );
   const slug: string = anthology.slug;
   const { form } = await json(request, "GET", `/api/anthologies/${slug}/call`);
   const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
