@@ -1,5 +1,6 @@
 import "server-only";
 /** Small WebP previews of uploaded artwork, stored beside each file version. */
+import path from "node:path";
 import sharp from "sharp";
 import type { SpecReport } from "@/lib/print/check";
 import { mmToIn } from "@/lib/print/units";
@@ -13,7 +14,8 @@ const RASTER = new Set(["png", "jpeg", "tiff", "webp"]);
 /**
  * A preview no longer than 480 px on its long side. Rasters are decoded with the same pixel
  * ceiling as the spec check, so a file the check refused unopened is never decoded here either.
- * PDFs get a plain page-shaped card with the page size: the stack has no PDF rasteriser.
+ * A PDF's first page is drawn with pdf.js onto a small canvas; if it cannot be drawn (damaged or
+ * encrypted files), a page-shaped card naming the page size stands in.
  */
 export async function makeThumbnail(
   bytes: Uint8Array,
@@ -48,10 +50,57 @@ export async function makeThumbnail(
     }
   }
   const page = m.pdfPages?.[0];
-  if (report.format === "pdf" && page)
-    return pdfCard(page.cropBox.widthMm, page.cropBox.heightMm, m.pdfPageCount ?? 1);
+  if (report.format === "pdf" && page) {
+    return (
+      (await renderPdfFirstPage(bytes)) ??
+      pdfCard(page.cropBox.widthMm, page.cropBox.heightMm, m.pdfPageCount ?? 1)
+    );
+  }
   return null;
 }
+
+/** Draws page 1 (its visible area: CropBox within MediaBox) at 480 px on the long side. */
+async function renderPdfFirstPage(bytes: Uint8Array): Promise<Thumbnail | null> {
+  try {
+    const [{ getDocument }, { createCanvas }] = await Promise.all([
+      import("pdfjs-dist/legacy/build/pdf.mjs"),
+      import("@napi-rs/canvas"),
+    ]);
+    const task = getDocument({
+      // pdf.js takes ownership of the buffer it is given: hand it a copy.
+      data: new Uint8Array(bytes),
+      isEvalSupported: false,
+      disableFontFace: true,
+      standardFontDataUrl: STANDARD_FONTS,
+      verbosity: 0,
+    });
+    try {
+      const pdf = await task.promise;
+      const first = await pdf.getPage(1);
+      const unit = first.getViewport({ scale: 1 });
+      const viewport = first.getViewport({
+        scale: THUMBNAIL_LONG_SIDE_PX / Math.max(unit.width, unit.height),
+      });
+      const canvas = createCanvas(Math.round(viewport.width), Math.round(viewport.height));
+      const context = canvas.getContext("2d");
+      context.fillStyle = "#ffffff";
+      context.fillRect(0, 0, canvas.width, canvas.height);
+      await first.render({ canvas: canvas as never, canvasContext: context as never, viewport })
+        .promise;
+      const { data, info } = await sharp(canvas.toBuffer("image/png"))
+        .webp({ quality: 78 })
+        .toBuffer({ resolveWithObject: true });
+      return { webp: data, widthPx: info.width, heightPx: info.height };
+    } finally {
+      await task.destroy();
+    }
+  } catch {
+    return null;
+  }
+}
+
+// pdf.js reads the 14 standard fonts from here (a folder path, with its trailing slash, under Node).
+const STANDARD_FONTS = `${path.join(process.cwd(), "node_modules", "pdfjs-dist", "standard_fonts")}/`;
 
 /** A neutral card in the page's proportions naming the page size; stands in for a rendered PDF page. */
 async function pdfCard(

@@ -1,9 +1,10 @@
 // A contributor answers an open call: signs up from the public page, creates a piece, uploads a
 // page without bleed, reads the finding and its fix, uploads a corrected file and sees it pass.
-import { mkdtempSync, rmSync } from "node:fs";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { expect, test, type APIRequestContext } from "@playwright/test";
+import { PDFDocument, rgb } from "pdf-lib";
 import sharp from "sharp";
 import { demoAccount, uniqueEmail } from "../helpers/demo";
 import { waitForMessage } from "../helpers/outbox";
@@ -36,6 +37,20 @@ async function pagePng(name: string, widthPx: number, heightPx: number): Promise
     .withDensity(300)
     .png()
     .toFile(file);
+  return file;
+}
+
+/**
+ * A one-page PDF at half letter plus 1/8 in bleed, 414 x 630 pt (5.75 x 8.75 in x 72), with the
+ * TrimBox 9 pt (1/8 in) inside the MediaBox, built with pdf-lib; the lower half is inked.
+ */
+async function pagePdf(name: string): Promise<string> {
+  const doc = await PDFDocument.create();
+  const page = doc.addPage([414, 630]);
+  page.drawRectangle({ x: 0, y: 0, width: 414, height: 315, color: rgb(0, 0, 0) });
+  page.setTrimBox(9, 9, 396, 612);
+  const file = join(workDir, name);
+  writeFileSync(file, await doc.save());
   return file;
 }
 
@@ -141,6 +156,22 @@ test("a contributor signs up from an open call, uploads a page without bleed, fi
   await older.locator("summary").click();
   await expect(older.getByTestId("older-version")).toHaveCount(1);
   await expect(older.locator('[data-code="no-bleed"]')).toBeVisible();
+
+  // A PDF page is drawn as its preview by the running server.
+  const overlayImage = page.getByTestId("overlay-1").locator("image");
+  const pngPreview = await overlayImage.getAttribute("href");
+  await page.getByTestId("upload-input-1").setInputFiles(await pagePdf("heron.pdf"));
+  await expect(overlayImage).not.toHaveAttribute("href", pngPreview ?? "", { timeout: 30_000 });
+  const preview = await page.request.get((await overlayImage.getAttribute("href"))!);
+  expect(preview.status()).toBe(200);
+  const { data, info } = await sharp(await preview.body())
+    .greyscale()
+    .raw()
+    .toBuffer({ resolveWithObject: true });
+  // 414 x 630 pt at 480 px on the long side: 315 x 480 px; paper above, ink below.
+  expect([info.width, info.height]).toEqual([315, 480]);
+  expect(data[100 * info.width + 157]).toBeGreaterThan(200);
+  expect(data[380 * info.width + 157]).toBeLessThan(50);
 
   await page.goto(`/studio/${slug}/my-pieces`);
   await expect(page.getByTestId("my-piece")).toHaveCount(1);

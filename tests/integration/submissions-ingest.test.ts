@@ -1,6 +1,7 @@
 // The artwork pipeline against the real MariaDB and the upload fake: files are stored through the
 // real UploadThing SDK (UTApi), read back from the fake's file host, checked, and recorded.
 import { and, eq } from "drizzle-orm";
+import { PDFDocument, rgb } from "pdf-lib";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool, schema } from "@/db";
@@ -244,20 +245,34 @@ describe("bad files are stored with a clear finding, never half-stored", () => {
     expect(next).toMatchObject({ verdict: "pass", versionNumber: 2, current: true });
   });
 
-  it("a PDF gets a page-shaped preview with its size", async () => {
+  it("a PDF's first page is drawn as its preview, in the page's proportions", async () => {
     const pieceId = await makePiece(anthologyId, bea.id, { title: "PDF page" });
-    const result = await upload(
-      pieceId,
-      1,
-      await makePdf([{ media: [414, 630], trim: [9, 9, 396, 612] }]),
-      "page.pdf",
-      "application/pdf",
-      0,
-    );
+    // Half letter plus 1/8 in bleed is 414 x 630 pt (5.75 x 8.75 in x 72); the lower half is inked.
+    const doc = await PDFDocument.create();
+    const page = doc.addPage([414, 630]);
+    page.drawRectangle({ x: 0, y: 0, width: 414, height: 315, color: rgb(0, 0, 0) });
+    page.setTrimBox(9, 9, 396, 612);
+    const result = await upload(pieceId, 1, await doc.save(), "page.pdf", "application/pdf", 0);
     const v = await version(result.versionId);
-    const meta = await sharp(v.thumbnailWebp!).metadata();
+    const image = sharp(v.thumbnailWebp!);
+    const meta = await image.metadata();
     // 414 x 630 pt keeps its proportions at 480 px high: 315 px wide.
     expect([meta.width, meta.height]).toEqual([315, 480]);
+    const { data, info } = await image.greyscale().raw().toBuffer({ resolveWithObject: true });
+    const at = (x: number, y: number) => data[y * info.width + x]!;
+    expect(at(157, 100)).toBeGreaterThan(200); // upper half: paper
+    expect(at(157, 380)).toBeLessThan(50); // lower half: ink
+  });
+
+  it("a PDF that cannot be drawn still gets a page-shaped card with its size", async () => {
+    const pieceId = await makePiece(anthologyId, bea.id, { title: "Locked PDF" });
+    const result = await upload(pieceId, 1, encryptedPdf(), "locked.pdf", "application/pdf", 0);
+    const v = await version(result.versionId);
+    expect(v.thumbnailWebp).not.toBeNull();
+    const meta = await sharp(v.thumbnailWebp!).metadata();
+    // 396 x 612 pt at 480 px high is 311 px wide.
+    expect([meta.width, meta.height]).toEqual([311, 480]);
+    expect(v.verdict).toBe("blocker");
   });
 });
 
