@@ -9,6 +9,7 @@ import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { BINDING_LABELS, BINDINGS, PRINT_METHOD_LABELS, PRINT_METHODS } from "@/lib/domain";
 import { defaultCaliperMm, shouldScore } from "@/lib/print/paper";
+import { mmText } from "@/lib/format";
 import { findPreset } from "@/lib/print/sizes";
 import { z } from "zod";
 import {
@@ -141,7 +142,16 @@ export function AnthologyForm() {
 
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="mb-2 text-xl font-semibold">Trim, bleed and safe area</legend>
-        <Field id="trimChoice" label="Trim size" error={e.trimChoice?.message}>
+        <Field
+          id="trimChoice"
+          label="Trim size"
+          hint={
+            preset
+              ? `${mmText(preset.widthMm)} x ${mmText(preset.heightMm)} mm`
+              : "Enter the size below."
+          }
+          error={e.trimChoice?.message}
+        >
           <select
             {...register("trimChoice")}
             {...describedBy("trimChoice", e.trimChoice?.message)}
@@ -193,13 +203,7 @@ export function AnthologyForm() {
               />
             </Field>
           </>
-        ) : (
-          <p className="self-end text-sm text-ink-soft sm:col-span-2" data-testid="trim-size">
-            {preset
-              ? `${Number(preset.widthMm.toFixed(1))} x ${Number(preset.heightMm.toFixed(1))} mm`
-              : null}
-          </p>
-        )}
+        ) : null}
         <Field
           id="bleed"
           label={`Bleed (${unitLabel})`}
