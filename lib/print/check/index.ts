@@ -5,7 +5,7 @@
  */
 import type { PrintSpec } from "../spec";
 import { checkPdf } from "./pdf";
-import { checkRaster, checkRasterHeader } from "./raster";
+import { checkRaster, checkRasterHeader, type RasterResult } from "./raster";
 import { makeReport } from "./report";
 import { formatFromFilename, formatFromMimeType, formatName, sniffFormat } from "./sniff";
 import {
@@ -73,37 +73,36 @@ function triage(bytes: Uint8Array, options: CheckOptions): Triage {
 }
 
 /** Full check: header, size, resolution, colour, then edges and transparency from a small decode (raster) or page boxes (PDF). */
-export async function checkArtwork(
+export function checkArtwork(
   bytes: Uint8Array | Buffer,
   spec: PrintSpec,
   options: CheckOptions = {},
 ): Promise<SpecReport> {
-  const data = toBytes(bytes);
-  const t = triage(data, options);
-  const base = { byteLength: data.length, declaredFormat: t.declaredFormat };
-  if (t.stop) return makeReport(t.format, base, t.findings);
-  try {
-    const result =
-      t.format === "pdf"
-        ? await checkPdf(data, spec, { trimToleranceMm: options.trimToleranceMm })
-        : await checkRaster(data, t.format, spec, {
-            maxPixels: options.maxPixels ?? DEFAULT_MAX_PIXELS,
-            edgeAnalysis: options.edgeAnalysis ?? true,
-          });
-    return makeReport(t.format, { ...result.measured, ...base }, [
-      ...t.findings,
-      ...result.findings,
-    ]);
-  } catch (error) {
-    return makeReport(t.format, base, [...t.findings, unexpected(error)]);
-  }
+  return runCheck(bytes, spec, options, (data, format) =>
+    checkRaster(data, format, spec, {
+      maxPixels: options.maxPixels ?? DEFAULT_MAX_PIXELS,
+      edgeAnalysis: options.edgeAnalysis ?? true,
+    }),
+  );
 }
 
 /** Header-only verdict on size, resolution and colour; for a raster no pixel is decoded. */
-export async function checkArtworkHeader(
+export function checkArtworkHeader(
   bytes: Uint8Array | Buffer,
   spec: PrintSpec,
   options: CheckOptions = {},
+): Promise<SpecReport> {
+  return runCheck(bytes, spec, options, (data, format) =>
+    checkRasterHeader(data, format, spec, options.maxPixels ?? DEFAULT_MAX_PIXELS),
+  );
+}
+
+/** Sniffs the bytes, checks PDFs by their page boxes and rasters with `raster`; never throws. */
+async function runCheck(
+  bytes: Uint8Array | Buffer,
+  spec: PrintSpec,
+  options: CheckOptions,
+  raster: (data: Uint8Array, format: ArtworkFormat) => Promise<RasterResult>,
 ): Promise<SpecReport> {
   const data = toBytes(bytes);
   const t = triage(data, options);
@@ -113,7 +112,7 @@ export async function checkArtworkHeader(
     const result =
       t.format === "pdf"
         ? await checkPdf(data, spec, { trimToleranceMm: options.trimToleranceMm })
-        : await checkRasterHeader(data, t.format, spec, options.maxPixels ?? DEFAULT_MAX_PIXELS);
+        : await raster(data, t.format);
     return makeReport(t.format, { ...result.measured, ...base }, [
       ...t.findings,
       ...result.findings,
