@@ -4,8 +4,8 @@ import { eq } from "drizzle-orm";
 import sharp from "sharp";
 import { db, schema } from "@/db";
 import type { Role } from "@/lib/domain";
-import { inToMm } from "@/lib/print/units";
 import { uniqueEmail } from "./demo";
+import { halfLetterDuplicatorSpec } from "./anthology-spec";
 
 export type TestPerson = { id: string; name: string; email: string };
 
@@ -43,20 +43,7 @@ export async function makeAnthologyWithCall(
       title: `Test Tideline ${slug}`,
       pressName: "Marrowbend Print Collective",
       stage: "call-open",
-      trimPreset: "half-letter",
-      trimWidthMm: inToMm(5.5),
-      trimHeightMm: inToMm(8.5),
-      bleedMm: inToMm(0.125),
-      safeMarginMm: inToMm(0.25),
-      binding: "saddle-stitch",
-      pageCountTarget: 16,
-      maxPages: 32,
-      coverStock: "self",
-      paperGsm: 90,
-      paperCaliperMm: 0.11,
-      printMethod: "duplicator",
-      inks: ["black", "teal"],
-      minPpi: 300,
+      ...halfLetterDuplicatorSpec,
       createdBy: lead.id,
     })
     .$returningId();

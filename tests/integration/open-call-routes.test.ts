@@ -3,6 +3,7 @@ import { PDFDocument } from "pdf-lib";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { uniqueEmail } from "../helpers/demo";
+import { halfLetterDuplicatorSpec } from "../helpers/anthology-spec";
 
 // The route handlers read the session through `auth()`; each test says who is signed in.
 const session = vi.hoisted(() => ({ userId: null as string | null }));
@@ -17,7 +18,6 @@ const { createAnthology } = await import("@/db/queries/anthologies");
 const callRoute = await import("@/app/api/anthologies/[slug]/call/route");
 const templateRoute = await import("@/app/api/anthologies/[slug]/call/template/route");
 const stageRoute = await import("@/app/api/anthologies/[slug]/stage/route");
-const { inToMm } = await import("@/lib/print/units");
 const { utcToZonedLocal } = await import("@/lib/time-zones");
 
 const ZONE = "America/Halifax";
@@ -76,20 +76,7 @@ async function makeAnthology(title: string) {
       title,
       pressName: "Marrowbend Print Collective",
       stage: "planning",
-      trimPreset: "half-letter",
-      trimWidthMm: inToMm(5.5),
-      trimHeightMm: inToMm(8.5),
-      bleedMm: inToMm(0.125),
-      safeMarginMm: inToMm(0.25),
-      binding: "saddle-stitch",
-      pageCountTarget: 16,
-      maxPages: 32,
-      coverStock: "self",
-      paperGsm: 90,
-      paperCaliperMm: 0.11,
-      printMethod: "duplicator",
-      inks: ["black", "teal"],
-      minPpi: 300,
+      ...halfLetterDuplicatorSpec,
       currency: "USD",
     },
     `call-routes-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 7)}`,
