@@ -1,4 +1,4 @@
-import type { ReactNode } from "react";
+import type { ComponentProps, ReactNode } from "react";
 
 /** A labelled form control with its hint and error, wired for screen readers. */
 export function Field({
@@ -50,4 +50,22 @@ export function describedBy(id: string, error?: string) {
     "aria-invalid": error ? true : undefined,
     "aria-describedby": error ? `${id}-error` : `${id}-hint`,
   } as const;
+}
+
+type TextFieldProps = Omit<ComponentProps<"input">, "id" | "className"> & {
+  id: string;
+  label: string;
+  hint?: string;
+  error?: string;
+  /** Classes for the wrapper (grid placement); the input keeps Quireline's style. */
+  fieldClassName?: string;
+};
+
+/** A labelled text input: Field plus an input wired to its hint and error; takes react-hook-form's register(). */
+export function TextField({ id, label, hint, error, fieldClassName, ...input }: TextFieldProps) {
+  return (
+    <Field id={id} label={label} hint={hint} error={error} className={fieldClassName}>
+      <input {...input} {...describedBy(id, error)} className={inputClass} />
+    </Field>
+  );
 }

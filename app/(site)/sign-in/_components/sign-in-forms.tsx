@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState, useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { showServerFieldErrors } from "@/components/ui/server-field-errors";
 import { emailLinkSchema, signInSchema } from "@/lib/validations/account";
@@ -52,24 +52,22 @@ function PasswordSignIn({ callbackUrl }: { callbackUrl?: string }) {
           {formError}
         </Notice>
       ) : null}
-      <Field id="pw-email" label="E-mail" error={e.email?.message}>
-        <input
-          {...register("email")}
-          {...describedBy("pw-email", e.email?.message)}
-          type="email"
-          autoComplete="email"
-          className={inputClass}
-        />
-      </Field>
-      <Field id="pw-password" label="Password" error={e.password?.message}>
-        <input
-          {...register("password")}
-          {...describedBy("pw-password", e.password?.message)}
-          type="password"
-          autoComplete="current-password"
-          className={inputClass}
-        />
-      </Field>
+      <TextField
+        id="pw-email"
+        label="E-mail"
+        error={e.email?.message}
+        {...register("email")}
+        type="email"
+        autoComplete="email"
+      />
+      <TextField
+        id="pw-password"
+        label="Password"
+        error={e.password?.message}
+        {...register("password")}
+        type="password"
+        autoComplete="current-password"
+      />
       <Button type="submit" busy={pending}>
         {pending ? "Signing in…" : "Sign in"}
       </Button>
@@ -105,15 +103,14 @@ function EmailLinkSignIn({ callbackUrl }: { callbackUrl?: string }) {
         No password needed: we send a link that signs you in once, within the hour.
       </p>
       {formError ? <Notice tone="error">{formError}</Notice> : null}
-      <Field id="link-email" label="E-mail" error={formState.errors.email?.message}>
-        <input
-          {...register("email")}
-          {...describedBy("link-email", formState.errors.email?.message)}
-          type="email"
-          autoComplete="email"
-          className={inputClass}
-        />
-      </Field>
+      <TextField
+        id="link-email"
+        label="E-mail"
+        error={formState.errors.email?.message}
+        {...register("email")}
+        type="email"
+        autoComplete="email"
+      />
       <Button type="submit" variant="quiet" busy={pending}>
         {pending ? "Sending…" : "Send me a sign-in link"}
       </Button>

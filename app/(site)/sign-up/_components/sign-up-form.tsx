@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { TextField } from "@/components/ui/field";
 import { signUpSchema, type SignUpInput } from "@/lib/validations/account";
 import { signUpAction } from "../../sign-in/actions";
 import { showServerFieldErrors } from "@/components/ui/server-field-errors";
@@ -28,42 +28,31 @@ export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
       noValidate
       className="flex flex-col gap-4 rounded-lg border border-ink/10 bg-white/50 p-5"
     >
-      <Field
+      <TextField
         id="name"
         label="Your name"
         hint="As you would like editors to see it."
         error={e.name?.message}
-      >
-        <input
-          {...register("name")}
-          {...describedBy("name", e.name?.message)}
-          autoComplete="name"
-          className={inputClass}
-        />
-      </Field>
-      <Field id="email" label="E-mail" error={e.email?.message}>
-        <input
-          {...register("email")}
-          {...describedBy("email", e.email?.message)}
-          type="email"
-          autoComplete="email"
-          className={inputClass}
-        />
-      </Field>
-      <Field
+        {...register("name")}
+        autoComplete="name"
+      />
+      <TextField
+        id="email"
+        label="E-mail"
+        error={e.email?.message}
+        {...register("email")}
+        type="email"
+        autoComplete="email"
+      />
+      <TextField
         id="password"
         label="Password"
         hint="At least 10 characters, with letters and a digit."
         error={e.password?.message}
-      >
-        <input
-          {...register("password")}
-          {...describedBy("password", e.password?.message)}
-          type="password"
-          autoComplete="new-password"
-          className={inputClass}
-        />
-      </Field>
+        {...register("password")}
+        type="password"
+        autoComplete="new-password"
+      />
       <Button type="submit" variant="accent" busy={pending}>
         {pending ? "Creating your account…" : "Create account"}
       </Button>

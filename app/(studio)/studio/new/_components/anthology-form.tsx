@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { describedBy, Field, inputClass, TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { BINDING_LABELS, BINDINGS, PRINT_METHOD_LABELS, PRINT_METHODS } from "@/lib/domain";
 import { defaultCaliperMm, shouldScore } from "@/lib/print/paper";
@@ -106,38 +106,22 @@ export function AnthologyForm() {
       ) : null}
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-xl font-semibold">The anthology</legend>
-        <Field id="title" label="Title" error={e.title?.message}>
-          <input
-            {...register("title")}
-            {...describedBy("title", e.title?.message)}
-            className={inputClass}
-          />
-        </Field>
-        <Field
+        <TextField id="title" label="Title" error={e.title?.message} {...register("title")} />
+        <TextField
           id="pressName"
           label="Press or collective"
           hint="Optional."
           error={e.pressName?.message}
-        >
-          <input
-            {...register("pressName")}
-            {...describedBy("pressName", e.pressName?.message)}
-            className={inputClass}
-          />
-        </Field>
-        <Field
+          {...register("pressName")}
+        />
+        <TextField
           id="summary"
           label="One-line summary"
           hint="Optional; shown on the open call."
-          className="sm:col-span-2"
+          fieldClassName="sm:col-span-2"
           error={e.summary?.message}
-        >
-          <input
-            {...register("summary")}
-            {...describedBy("summary", e.summary?.message)}
-            className={inputClass}
-          />
-        </Field>
+          {...register("summary")}
+        />
       </fieldset>
 
       <fieldset className="grid gap-4 sm:grid-cols-3">
@@ -182,67 +166,46 @@ export function AnthologyForm() {
         </Field>
         {trimChoice === "custom" ? (
           <>
-            <Field id="customWidth" label={`Width (${unitLabel})`} error={e.customWidth?.message}>
-              <input
-                {...register("customWidth")}
-                {...describedBy("customWidth", e.customWidth?.message)}
-                inputMode="decimal"
-                className={inputClass}
-              />
-            </Field>
-            <Field
+            <TextField
+              id="customWidth"
+              label={`Width (${unitLabel})`}
+              error={e.customWidth?.message}
+              {...register("customWidth")}
+              inputMode="decimal"
+            />
+            <TextField
               id="customHeight"
               label={`Height (${unitLabel})`}
               error={e.customHeight?.message}
-            >
-              <input
-                {...register("customHeight")}
-                {...describedBy("customHeight", e.customHeight?.message)}
-                inputMode="decimal"
-                className={inputClass}
-              />
-            </Field>
+              {...register("customHeight")}
+              inputMode="decimal"
+            />
           </>
         ) : null}
-        <Field
+        <TextField
           id="bleed"
           label={`Bleed (${unitLabel})`}
           hint={unit === "in" ? "Usually 0.125 in." : "Usually 3 mm."}
           error={e.bleed?.message}
-        >
-          <input
-            {...register("bleed")}
-            {...describedBy("bleed", e.bleed?.message)}
-            inputMode="decimal"
-            className={inputClass}
-          />
-        </Field>
-        <Field
+          {...register("bleed")}
+          inputMode="decimal"
+        />
+        <TextField
           id="safeMargin"
           label={`Safe margin (${unitLabel})`}
           hint="Keep text this far inside the trim."
           error={e.safeMargin?.message}
-        >
-          <input
-            {...register("safeMargin")}
-            {...describedBy("safeMargin", e.safeMargin?.message)}
-            inputMode="decimal"
-            className={inputClass}
-          />
-        </Field>
-        <Field
+          {...register("safeMargin")}
+          inputMode="decimal"
+        />
+        <TextField
           id="minPpi"
           label="Minimum resolution (ppi)"
           hint="300 ppi for photos and tones."
           error={e.minPpi?.message}
-        >
-          <input
-            {...register("minPpi")}
-            {...describedBy("minPpi", e.minPpi?.message)}
-            inputMode="numeric"
-            className={inputClass}
-          />
-        </Field>
+          {...register("minPpi")}
+          inputMode="numeric"
+        />
       </fieldset>
 
       <fieldset className="grid gap-4 sm:grid-cols-3">
@@ -256,35 +219,28 @@ export function AnthologyForm() {
             ))}
           </select>
         </Field>
-        <Field
+        <TextField
           id="pageCountTarget"
           label="Pages (with covers)"
           hint="A multiple of 4 for saddle stitch."
           error={e.pageCountTarget?.message}
-        >
-          <input
-            {...register("pageCountTarget")}
-            {...describedBy("pageCountTarget", e.pageCountTarget?.message)}
-            inputMode="numeric"
-            className={inputClass}
-          />
-        </Field>
-        <Field id="maxPages" label="Most pages the stapler allows" error={e.maxPages?.message}>
-          <input
-            {...register("maxPages")}
-            {...describedBy("maxPages", e.maxPages?.message)}
-            inputMode="numeric"
-            className={inputClass}
-          />
-        </Field>
-        <Field id="paperGsm" label="Inside paper (gsm)" error={e.paperGsm?.message}>
-          <input
-            {...register("paperGsm")}
-            {...describedBy("paperGsm", e.paperGsm?.message)}
-            inputMode="numeric"
-            className={inputClass}
-          />
-        </Field>
+          {...register("pageCountTarget")}
+          inputMode="numeric"
+        />
+        <TextField
+          id="maxPages"
+          label="Most pages the stapler allows"
+          error={e.maxPages?.message}
+          {...register("maxPages")}
+          inputMode="numeric"
+        />
+        <TextField
+          id="paperGsm"
+          label="Inside paper (gsm)"
+          error={e.paperGsm?.message}
+          {...register("paperGsm")}
+          inputMode="numeric"
+        />
         <Field
           id="paperCaliperMm"
           label="Paper caliper (mm)"
@@ -313,14 +269,13 @@ export function AnthologyForm() {
           </select>
         </Field>
         {coverStock === "separate" ? (
-          <Field id="coverPaperGsm" label="Cover stock (gsm)" error={e.coverPaperGsm?.message}>
-            <input
-              {...register("coverPaperGsm")}
-              {...describedBy("coverPaperGsm", e.coverPaperGsm?.message)}
-              inputMode="numeric"
-              className={inputClass}
-            />
-          </Field>
+          <TextField
+            id="coverPaperGsm"
+            label="Cover stock (gsm)"
+            error={e.coverPaperGsm?.message}
+            {...register("coverPaperGsm")}
+            inputMode="numeric"
+          />
         ) : null}
         {(coverStock === "separate" && shouldScore(coverNumber)) || shouldScore(gsmNumber) ? (
           <p className="text-sm text-ink-soft sm:col-span-3" data-testid="score-hint">
@@ -344,19 +299,14 @@ export function AnthologyForm() {
             ))}
           </select>
         </Field>
-        <Field
+        <TextField
           id="inksPerPass"
           label="Inks per pass"
           hint="A stencil duplicator lays one ink per pass."
           error={e.inksPerPass?.message}
-        >
-          <input
-            {...register("inksPerPass")}
-            {...describedBy("inksPerPass", e.inksPerPass?.message)}
-            inputMode="numeric"
-            className={inputClass}
-          />
-        </Field>
+          {...register("inksPerPass")}
+          inputMode="numeric"
+        />
         <div className="flex flex-col gap-2 sm:col-span-3">
           <p className="text-sm font-semibold" id="inks-label">
             Inks

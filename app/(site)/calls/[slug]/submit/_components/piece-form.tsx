@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useEffect, useMemo, useState } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { describedBy, Field, inputClass, TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { PIECE_KIND_LABELS } from "@/lib/domain";
 import {
@@ -98,13 +98,7 @@ export function PieceForm({
       <p className="text-sm text-ink-soft">
         You can send {remaining} more piece{remaining === 1 ? "" : "s"} to this call.
       </p>
-      <Field id="title" label="Title" error={e.title?.message}>
-        <input
-          {...register("title")}
-          {...describedBy("title", e.title?.message)}
-          className={inputClass}
-        />
-      </Field>
+      <TextField id="title" label="Title" error={e.title?.message} {...register("title")} />
 
       <fieldset
         className="flex flex-col gap-2"
@@ -198,18 +192,13 @@ export function PieceForm({
         }}
       />
 
-      <Field
+      <TextField
         id="creditLine"
         label="Credit line"
         hint="Your name as it should appear in the credits, e.g. “Words and pictures by …”."
         error={e.creditLine?.message}
-      >
-        <input
-          {...register("creditLine")}
-          {...describedBy("creditLine", e.creditLine?.message)}
-          className={inputClass}
-        />
-      </Field>
+        {...register("creditLine")}
+      />
 
       <Field
         id="statement"
