@@ -5,9 +5,9 @@ import type {} from "next-auth/jwt";
 import Credentials from "next-auth/providers/credentials";
 import Nodemailer from "next-auth/providers/nodemailer";
 import { db, schema } from "@/db";
-import { verifyPassword } from "@/lib/auth/password";
+import { verifyPassword } from "@/server/auth/password";
 import { env } from "@/lib/env";
-import { sendMail, simpleHtml } from "@/lib/mail";
+import { sendMail, simpleHtml } from "@/server/mail";
 import { signInSchema } from "@/lib/validations/account";
 
 declare module "next-auth" {

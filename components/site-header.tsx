@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { signOut } from "@/auth";
-import { currentUser } from "@/lib/auth/guard";
+import { currentUser } from "@/server/auth/guard";
 import { Logo } from "@/components/ui/logo";
 
 /** Top bar: the name mark, and either the studio link and sign-out or the sign-in links. */

@@ -86,3 +86,6 @@ export const SLOT_RESERVATIONS = [
   "blank",
 ] as const;
 export type SlotReservation = (typeof SLOT_RESERVATIONS)[number];
+
+/** The signed-in person as the app sees them (from the session). */
+export type SessionUser = { id: string; name: string | null; email: string | null };

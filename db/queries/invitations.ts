@@ -5,7 +5,7 @@ import { db, schema } from "@/db";
 import type { Role } from "@/lib/domain";
 import { ROLE_LABELS } from "@/lib/domain";
 import { env } from "@/lib/env";
-import { simpleHtml } from "@/lib/mail";
+import { simpleHtml } from "@/server/mail";
 import { sendLoggedMail } from "./mail-log";
 import type { Anthology } from "./anthologies";
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { db, schema } from "@/db";
-import { sendMail } from "@/lib/mail";
+import { sendMail } from "@/server/mail";
 
 /** Sends a mail and writes it to the e-mail log; with a dedupe key, a second send is skipped. */
 export async function sendLoggedMail(mail: {

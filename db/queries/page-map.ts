@@ -17,9 +17,9 @@ import type {
   MapPieceCard,
   NoticesAnswer,
 } from "@/lib/map-edits/payload";
-import type { SessionUser } from "@/lib/auth/guard";
+import type { SessionUser } from "@/lib/domain";
 import { env } from "@/lib/env";
-import { simpleHtml } from "@/lib/mail";
+import { simpleHtml } from "@/server/mail";
 import type { MapChangeRequest } from "@/lib/validations/page-map";
 import type { Anthology } from "./anthologies";
 import { sendLoggedMail } from "./mail-log";

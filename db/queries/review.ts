@@ -4,7 +4,7 @@ import { db, schema } from "@/db";
 import { fileVersionSummary } from "./submissions";
 import { PIECE_KINDS, PIECE_STATUS_LABELS, PIECE_STATUSES, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
-import { simpleHtml } from "@/lib/mail";
+import { simpleHtml } from "@/server/mail";
 import { canMove, STATUSES_THAT_EMAIL } from "@/lib/pieces/status";
 import { statusMail } from "@/lib/pieces/status-mail";
 import { PIECE_VERDICT_RANK, PIECE_VERDICTS, type PieceVerdict } from "@/lib/pieces/verdict";

@@ -1,4 +1,5 @@
 import "server-only";
+import { Refusal } from "@/lib/refusal";
 /** What contributors do with their own pieces: create, list, read, withdraw, pick a version. */
 import { and, asc, desc, eq, inArray, ne, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
@@ -33,16 +34,6 @@ export const fileVersionSummary = {
 export type Call = CallRow;
 export type Piece = typeof p.$inferSelect;
 
-/** A refusal the route handlers turn into a 4xx with this message. */
-export class SubmissionRefused extends Error {
-  constructor(
-    readonly status: 400 | 403 | 404 | 409 | 413,
-    message: string,
-  ) {
-    super(message);
-  }
-}
-
 export function callRulesOf(
   call: Pick<Call, "allowedKinds" | "maxRunPages" | "allowedInks">,
 ): CallRules {
@@ -69,19 +60,19 @@ export function submitRefusal(
   role: Role | null,
   activePieces: number,
   call: Pick<Call, "piecesPerPerson">,
-): SubmissionRefused | null {
+): Refusal | null {
   if (role === "lead" || role === "editor")
-    return new SubmissionRefused(
+    return new Refusal(
       403,
       "You edit this anthology, so you cannot submit to its call. Ask another editor to add your piece, or use a separate contributor account.",
     );
   if (role === "finisher")
-    return new SubmissionRefused(
+    return new Refusal(
       403,
       "You are this anthology's finisher; finishers cannot submit to its call.",
     );
   if (activePieces >= call.piecesPerPerson)
-    return new SubmissionRefused(
+    return new Refusal(
       409,
       `This call takes ${call.piecesPerPerson} piece${call.piecesPerPerson === 1 ? "" : "s"} per person and you already have ${activePieces}. Withdraw one to send another.`,
     );
@@ -340,15 +331,6 @@ export async function findPieceAccess(
   };
 }
 
-/**
- * Who may see a piece: its contributor (while still a contributor member) and the anthology's
- * lead and editors. Finishers and other contributors may not.
- */
-export function maySeePiece(access: Pick<PieceAccess, "role" | "isOwner">): boolean {
-  if (access.role === "lead" || access.role === "editor") return true;
-  return access.isOwner && access.role === "contributor";
-}
-
 /** The contributor withdraws their piece; refused when the status rules do not allow it. */
 export async function withdrawPiece(
   pieceId: number,
@@ -361,13 +343,13 @@ export async function withdrawPiece(
       .from(p)
       .where(eq(p.id, pieceId))
       .for("update");
-    if (!row) throw new SubmissionRefused(404, "There is no such piece.");
+    if (!row) throw new Refusal(404, "There is no such piece.");
     if (row.contributorId !== userId)
-      throw new SubmissionRefused(403, "Only the person who sent a piece can withdraw it.");
+      throw new Refusal(403, "Only the person who sent a piece can withdraw it.");
     if (row.status === "withdrawn")
-      throw new SubmissionRefused(409, "You have already withdrawn this piece.");
+      throw new Refusal(409, "You have already withdrawn this piece.");
     if (!canMove(row.status, "withdrawn", "contributor"))
-      throw new SubmissionRefused(
+      throw new Refusal(
         409,
         "This piece can no longer be withdrawn: the editors have already decided on it.",
       );
@@ -429,19 +411,19 @@ export async function useVersion(
       .from(p)
       .where(eq(p.id, pieceId))
       .for("update");
-    if (!piece) throw new SubmissionRefused(404, "There is no such piece.");
+    if (!piece) throw new Refusal(404, "There is no such piece.");
     if (piece.contributorId !== userId)
-      throw new SubmissionRefused(403, "Only the person who sent a piece can change its files.");
+      throw new Refusal(403, "Only the person who sent a piece can change its files.");
     if (!uploadsAllowed(piece.status))
-      throw new SubmissionRefused(409, "Files of this piece can no longer be changed.");
+      throw new Refusal(409, "Files of this piece can no longer be changed.");
     const [page] = await tx
       .select()
       .from(pp)
       .where(and(eq(pp.pieceId, pieceId), eq(pp.pageIndex, choice.pageIndex)))
       .for("update");
-    if (!page) throw new SubmissionRefused(404, `This piece has no page ${choice.pageIndex}.`);
+    if (!page) throw new Refusal(404, `This piece has no page ${choice.pageIndex}.`);
     if (page.revision !== choice.expectedRevision)
-      throw new SubmissionRefused(
+      throw new Refusal(
         409,
         "This page changed in another window since you opened it; reload to see its current file.",
       );
@@ -449,7 +431,7 @@ export async function useVersion(
       .select({ id: fv.id })
       .from(fv)
       .where(and(eq(fv.id, choice.versionId), eq(fv.piecePageId, page.id)));
-    if (!version) throw new SubmissionRefused(404, "That version does not belong to this page.");
+    if (!version) throw new Refusal(404, "That version does not belong to this page.");
     await tx
       .update(pp)
       .set({ currentVersionId: version.id, revision: page.revision + 1 })
@@ -470,15 +452,14 @@ export async function setAltText(
     .select({ contributorId: p.contributorId })
     .from(p)
     .where(eq(p.id, pieceId));
-  if (!piece) throw new SubmissionRefused(404, "There is no such piece.");
+  if (!piece) throw new Refusal(404, "There is no such piece.");
   if (piece.contributorId !== userId)
-    throw new SubmissionRefused(403, "Only the person who sent a piece can describe its pages.");
+    throw new Refusal(403, "Only the person who sent a piece can describe its pages.");
   const result = await db
     .update(pp)
     .set({ altText: altText || null })
     .where(and(eq(pp.pieceId, pieceId), eq(pp.pageIndex, pageIndex)));
-  if (result[0].affectedRows === 0)
-    throw new SubmissionRefused(404, `This piece has no page ${pageIndex}.`);
+  if (result[0].affectedRows === 0) throw new Refusal(404, `This piece has no page ${pageIndex}.`);
 }
 
 /** A version's thumbnail bytes with what is needed to decide who may see it. */

@@ -5,7 +5,7 @@
 import { and, eq } from "drizzle-orm";
 import type { Db } from "@/db";
 import { schema } from "@/db";
-import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { hashPassword, verifyPassword } from "@/server/auth/password";
 import type { Role } from "@/lib/domain";
 import { inToMm } from "@/lib/print/units";
 import demoAccounts from "../demo-accounts.json";

@@ -12,8 +12,8 @@ import type { Db } from "@/db";
 import { schema } from "@/db";
 import { createPiece, findCall } from "@/db/queries/submissions";
 import type { PieceKind, PieceStatus } from "@/lib/domain";
-import { ingestUpload } from "@/lib/submissions/ingest";
-import { storeFile } from "@/lib/uploads";
+import { ingestUpload } from "@/server/submissions/ingest";
+import { storeFile } from "@/server/uploads";
 
 type Art = {
   name: string;

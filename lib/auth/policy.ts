@@ -38,3 +38,12 @@ export function rolesInvitableBy(role: Role | null | undefined): Role[] {
   if (role === "editor") return ["editor", "finisher", "contributor"];
   return [];
 }
+
+/**
+ * Who may see one piece, its files and previews: the anthology's lead and editors, and the
+ * contributor who sent it. Everyone else (finishers, other contributors) may not.
+ */
+export function maySeePiece(role: Role | null | undefined, isOwner: boolean): boolean {
+  if (can(role, "pieces:review")) return true;
+  return isOwner && can(role, "pieces:view-own");
+}

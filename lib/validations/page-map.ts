@@ -46,6 +46,13 @@ export const copiesSchema = z.coerce
   .min(1, "At least one copy")
   .max(100_000, "At most 100 000 copies");
 
+/** The map's query string: `?copies=` for the per-run pass figures (empty means the default). */
+export const mapQuerySchema = z.object({
+  copies: z
+    .union([z.literal("").transform(() => COPIES_DEFAULT), copiesSchema])
+    .default(COPIES_DEFAULT),
+});
+
 export const proposalRequestSchema = z.object({
   version: z.number().int().min(0),
   copies: copiesSchema.optional(),

@@ -5,9 +5,9 @@ import { PDFDocument, rgb } from "pdf-lib";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool, schema } from "@/db";
-import { SubmissionRefused } from "@/db/queries/submissions";
-import { authoriseArtworkUpload, ingestUpload, type IngestResult } from "@/lib/submissions/ingest";
-import { storeFile } from "@/lib/uploads";
+import { Refusal } from "@/lib/refusal";
+import { authoriseArtworkUpload, ingestUpload, type IngestResult } from "@/server/submissions/ingest";
+import { storeFile } from "@/server/uploads";
 import { assertTestDatabase } from "../helpers/env";
 import { waitForMessage } from "../helpers/outbox";
 import {
@@ -382,7 +382,7 @@ describe("refusals", () => {
     try {
       await work;
     } catch (error) {
-      if (error instanceof SubmissionRefused)
+      if (error instanceof Refusal)
         return { status: error.status, message: error.message };
       throw error;
     }

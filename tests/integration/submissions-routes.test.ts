@@ -3,7 +3,7 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool, schema } from "@/db";
-import { ingestUpload } from "@/lib/submissions/ingest";
+import { ingestUpload } from "@/server/submissions/ingest";
 import { assertTestDatabase } from "../helpers/env";
 import {
   greyPage,

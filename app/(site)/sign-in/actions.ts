@@ -5,8 +5,8 @@ import { AuthError } from "next-auth";
 import { redirect } from "next/navigation";
 import { signIn } from "@/auth";
 import { db, schema } from "@/db";
-import { fieldErrors } from "@/lib/api";
-import { hashPassword } from "@/lib/auth/password";
+import { fieldErrors } from "@/server/api";
+import { hashPassword } from "@/server/auth/password";
 import { emailLinkSchema, signInSchema, signUpSchema } from "@/lib/validations/account";
 
 export type FormResult = { error?: string; fields?: Record<string, string[]> } | undefined;

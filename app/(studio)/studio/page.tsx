@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { linkButtonClass } from "@/components/ui/button";
 import { listMyAnthologies } from "@/db/queries/anthologies";
-import { requireUser } from "@/lib/auth/guard";
+import { requireUser } from "@/server/auth/guard";
 import { ROLES, ROLE_LABELS, STAGE_LABELS } from "@/lib/domain";
 import { formatTrim } from "@/lib/format";
 

@@ -1,4 +1,4 @@
-import { apiRoute, readJson, requireApiUser } from "@/lib/api";
+import { apiRoute, readJson, requireApiUser } from "@/server/api";
 import { createAnthology, listMyAnthologies } from "@/db/queries/anthologies";
 import { anthologyInputSchema, anthologySpecFromInput, slugify } from "@/lib/validations/anthology";
 

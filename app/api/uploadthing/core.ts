@@ -5,9 +5,9 @@ import "server-only";
  * and hands its outcome back to the browser as serverData. It never throws: a thrown error would
  * leave the browser waiting for an answer that never comes.
  */
-import { SubmissionRefused } from "@/db/queries/submissions";
-import { currentUser } from "@/lib/auth/guard";
-import { authoriseArtworkUpload, ingestUpload } from "@/lib/submissions/ingest";
+import { Refusal } from "@/lib/refusal";
+import { currentUser } from "@/server/auth/guard";
+import { authoriseArtworkUpload, ingestUpload } from "@/server/submissions/ingest";
 import {
   createUploadthing,
   deleteStoredFiles,
@@ -15,7 +15,7 @@ import {
   StoredFileError,
   UploadThingError,
   type FileRouter,
-} from "@/lib/uploads";
+} from "@/server/uploads";
 import { artworkUploadInputSchema } from "@/lib/validations/piece";
 
 const f = createUploadthing();
@@ -67,7 +67,7 @@ export const uploadRouter = {
       try {
         return await authoriseArtworkUpload(user?.id ?? null, input, files);
       } catch (error) {
-        if (error instanceof SubmissionRefused) {
+        if (error instanceof Refusal) {
           throw new UploadThingError({ code: CODES[error.status], message: error.message });
         }
         throw error;
@@ -93,7 +93,7 @@ export const uploadRouter = {
       } catch (error) {
         // Nothing was recorded, so the stored bytes must not linger either.
         await deleteStoredFiles([file.key]);
-        if (error instanceof SubmissionRefused) return { ok: false, error: error.message };
+        if (error instanceof Refusal) return { ok: false, error: error.message };
         if (error instanceof StoredFileError)
           return {
             ok: false,

@@ -1,4 +1,4 @@
-import { uploadRouteHandlers } from "@/lib/uploads";
+import { uploadRouteHandlers } from "@/server/uploads";
 import { uploadRouter } from "./core";
 
 export const { GET, POST } = uploadRouteHandlers(uploadRouter);

@@ -1,7 +1,7 @@
 import { redirect } from "next/navigation";
 import { Button } from "@/components/ui/button";
 import { acceptInvitation, findInvitation } from "@/db/queries/invitations";
-import { requireUser } from "@/lib/auth/guard";
+import { requireUser } from "@/server/auth/guard";
 import { ROLE_LABELS } from "@/lib/domain";
 
 export const metadata = { title: "Invitation" };

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
 import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
-import { currentUser } from "@/lib/auth/guard";
+import { currentUser } from "@/server/auth/guard";
 import { can, type Action } from "@/lib/auth/policy";
 
 /** Sections of an anthology, each shown only to roles that may open it. */

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { findCall } from "@/db/queries/open-call";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { can } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { callPhase } from "@/lib/stages";

@@ -1,4 +1,4 @@
-import { requireUser } from "@/lib/auth/guard";
+import { requireUser } from "@/server/auth/guard";
 import { AnthologyForm } from "./_components/anthology-form";
 
 export const metadata = { title: "New anthology" };

@@ -1,4 +1,4 @@
-import { apiRoute, requireApiAccess } from "@/lib/api";
+import { apiRoute, requireApiAccess } from "@/server/api";
 
 /** One anthology's record and the caller's role in it. */
 export const GET = apiRoute(async (_request, { params }: { params: Promise<{ slug: string }> }) => {

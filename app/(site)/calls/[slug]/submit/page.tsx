@@ -7,7 +7,7 @@ import { Notice } from "@/components/ui/notice";
 import { findRole } from "@/db/queries/anthologies";
 import { findPublishedCall } from "@/db/queries/open-call";
 import { callRulesOf, countActivePieces, submitRefusal } from "@/db/queries/submissions";
-import { currentUser } from "@/lib/auth/guard";
+import { currentUser } from "@/server/auth/guard";
 import { formatLength, formatTrim } from "@/lib/format";
 import { pixelsFor } from "@/lib/print/spec";
 import { callPhase, kindsText } from "@/lib/stages";

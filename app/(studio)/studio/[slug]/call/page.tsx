@@ -2,7 +2,7 @@ import Link from "next/link";
 import { CallSpecSummaryPanel } from "@/components/call-spec-summary";
 import { Notice } from "@/components/ui/notice";
 import { countPiecesForStage, findCall, toCallRecord } from "@/db/queries/open-call";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { can } from "@/lib/auth/policy";
 import { callSpecSummary } from "@/lib/call-spec";
 import { env } from "@/lib/env";

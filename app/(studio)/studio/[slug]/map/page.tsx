@@ -1,5 +1,5 @@
 import { loadMap } from "@/db/queries/page-map";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { can } from "@/lib/auth/policy";
 import { COPIES_DEFAULT } from "@/lib/validations/page-map";
 import { MapScreen } from "./_components/map-screen";

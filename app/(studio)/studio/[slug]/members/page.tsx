@@ -1,5 +1,5 @@
 import { listMembers } from "@/db/queries/anthologies";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { rolesInvitableBy } from "@/lib/auth/policy";
 import { ROLE_LABELS } from "@/lib/domain";
 import { InviteForm } from "./_components/invite-form";

@@ -4,7 +4,7 @@ import { linkButtonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { VerdictBadge } from "@/components/verdict-badge";
 import { countActivePieces, findCall, listOwnPieces } from "@/db/queries/submissions";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { PIECE_KIND_LABELS } from "@/lib/domain";
 import { callPhase } from "@/lib/stages";
 import { formatInZone } from "@/lib/time-zones";

@@ -1,5 +1,5 @@
 import { Suspense } from "react";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { SubmissionsTable } from "./_components/submissions-table";
 
 export const metadata = { title: "Submissions" };

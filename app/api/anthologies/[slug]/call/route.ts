@@ -1,5 +1,5 @@
 import { findCall, saveCall, toCallRecord, type CallRow } from "@/db/queries/open-call";
-import { apiRoute, HttpError, readJson, requireApiAccess } from "@/lib/api";
+import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { can } from "@/lib/auth/policy";
 import { callSpecSummary } from "@/lib/call-spec";
 import { callPhase } from "@/lib/stages";

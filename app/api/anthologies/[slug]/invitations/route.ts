@@ -1,4 +1,4 @@
-import { apiRoute, HttpError, readJson, requireApiAccess } from "@/lib/api";
+import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { rolesInvitableBy } from "@/lib/auth/policy";
 import { inviteToAnthology } from "@/db/queries/invitations";
 import { inviteSchema } from "@/lib/validations/anthology";

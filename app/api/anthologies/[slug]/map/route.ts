@@ -1,28 +1,20 @@
 import { changeMap, loadMap } from "@/db/queries/page-map";
-import { apiRoute, HttpError, readJson, requireApiAccess } from "@/lib/api";
+import { apiRoute, readJson, readQuery, requireApiAccess } from "@/server/api";
 import { can } from "@/lib/auth/policy";
 import type { MapChangeAnswer, MapRefusalAnswer } from "@/lib/map-edits/payload";
-import { COPIES_DEFAULT, copiesSchema, mapChangeRequestSchema } from "@/lib/validations/page-map";
+import { mapChangeRequestSchema, mapQuerySchema } from "@/lib/validations/page-map";
 
 type Context = { params: Promise<{ slug: string }> };
-
-function copiesFrom(request: Request): number {
-  const raw = new URL(request.url).searchParams.get("copies");
-  if (raw === null || raw === "") return COPIES_DEFAULT;
-  const parsed = copiesSchema.safeParse(raw);
-  if (!parsed.success)
-    throw new HttpError(400, "Copies must be a whole number from 1 to 100 000.", {
-      fields: { copies: ["Whole number from 1 to 100 000"] },
-    });
-  return parsed.data;
-}
 
 /** The page map: slots, accepted pieces, rule messages, passes, creep and history. */
 export const GET = apiRoute(async (request, { params }: Context) => {
   const { slug } = await params;
   const { anthology, role } = await requireApiAccess(slug, "map:view");
   return Response.json(
-    await loadMap(anthology, { canEdit: can(role, "map:edit"), copies: copiesFrom(request) }),
+    await loadMap(anthology, {
+      canEdit: can(role, "map:edit"),
+      copies: readQuery(request, mapQuerySchema).copies,
+    }),
   );
 });
 
@@ -33,8 +25,9 @@ export const GET = apiRoute(async (request, { params }: Context) => {
 export const POST = apiRoute(async (request, { params }: Context) => {
   const { slug } = await params;
   const { anthology, user } = await requireApiAccess(slug, "map:edit");
+  const { copies } = readQuery(request, mapQuerySchema);
   const input = await readJson(request, mapChangeRequestSchema);
-  const outcome = await changeMap(anthology, user, input, copiesFrom(request));
+  const outcome = await changeMap(anthology, user, input, copies);
   if (outcome.kind === "stale") {
     const body: MapRefusalAnswer = {
       error: `Someone else changed the map while you were working (it is now at version ${outcome.map.version}, you had ${input.version}). Your change was not saved; here is the map as it is now.`,

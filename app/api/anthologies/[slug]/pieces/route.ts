@@ -7,8 +7,8 @@ import {
   listOwnPieces,
   submitRefusal,
 } from "@/db/queries/submissions";
-import { apiRoute, HttpError, readJson, requireApiAccess, requireApiUser } from "@/lib/api";
-import { refusalsAsHttp } from "@/lib/submissions/http";
+import { apiRoute, HttpError, readJson, requireApiAccess, requireApiUser } from "@/server/api";
+
 import { callPhase } from "@/lib/stages";
 import { formatInZone } from "@/lib/time-zones";
 import { pieceSchemaFor } from "@/lib/validations/piece";
@@ -54,7 +54,7 @@ export const POST = apiRoute(async (request, { params }: Context) => {
   );
   if (early) throw new HttpError(early.status, early.message);
   const input = await readJson(request, pieceSchemaFor(callRulesOf(call)));
-  const piece = await refusalsAsHttp(() => createPiece(anthology, call, user.id, input));
+  const piece = await createPiece(anthology, call, user.id, input);
   return Response.json(
     {
       piece: {

@@ -1,5 +1,5 @@
 import { countPiecesForStage, findCall, moveStage } from "@/db/queries/open-call";
-import { apiRoute, HttpError, readJson, requireApiAccess } from "@/lib/api";
+import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { reviewStageMove } from "@/lib/stages";
 import { formatInZone } from "@/lib/time-zones";
 import { stageMoveSchema } from "@/lib/validations/call";

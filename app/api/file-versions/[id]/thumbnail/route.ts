@@ -1,25 +1,18 @@
 import { findRole } from "@/db/queries/anthologies";
 import { findThumbnail } from "@/db/queries/submissions";
-import { apiRoute, HttpError, requireApiUser } from "@/lib/api";
-import { idFromParam } from "@/lib/submissions/http";
+import { apiRoute, assertMaySeePiece, HttpError, idParam, requireApiUser } from "@/server/api";
 
 /** A file version's WebP preview: for the piece's contributor and the anthology's lead and editors. */
 export const GET = apiRoute(async (request, { params }: { params: Promise<{ id: string }> }) => {
   const { id } = await params;
   const user = await requireApiUser();
-  const row = await findThumbnail(idFromParam(id, "file"));
+  const row = await findThumbnail(idParam(id, "file"));
   if (!row) throw new HttpError(404, "There is no such file.");
-  const role = await findRole(row.anthologyId, user.id);
-  if (role === null) throw new HttpError(404, "There is no such file.");
-  const allowed =
-    role === "lead" ||
-    role === "editor" ||
-    (role === "contributor" && row.contributorId === user.id);
-  if (!allowed)
-    throw new HttpError(
-      403,
-      "Only the piece's contributor and the anthology's editors can see its files.",
-    );
+  assertMaySeePiece(
+    await findRole(row.anthologyId, user.id),
+    row.contributorId === user.id,
+    "file",
+  );
   if (!row.webp)
     throw new HttpError(404, "This file has no preview: it could not be read as a picture.");
   // A version's file never changes, so its preview can be cached for good (privately).

@@ -1,6 +1,5 @@
 import { addEditorNote, listEditorNotes } from "@/db/queries/review";
-import { apiRoute, readJson } from "@/lib/api";
-import { requirePieceApiAccess } from "@/lib/review/access";
+import { apiRoute, readJson, requirePieceApiAccess } from "@/server/api";
 import { editorNoteSchema } from "@/lib/validations/review";
 
 type Context = { params: Promise<{ id: string }> };

@@ -1,6 +1,5 @@
 import { movePiece } from "@/db/queries/review";
-import { apiRoute, HttpError, readJson } from "@/lib/api";
-import { requirePieceApiAccess } from "@/lib/review/access";
+import { apiRoute, HttpError, readJson, requirePieceApiAccess } from "@/server/api";
 import { pieceStatusChangeSchema } from "@/lib/validations/review";
 
 /** An editor moves one piece; 409 with the reason when the move is refused. */

@@ -11,11 +11,11 @@ import {
   type PageView,
   type VersionView,
 } from "@/db/queries/submissions";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { canMove } from "@/lib/pieces/status";
-import { uploadsAllowed, uploadsClosedReason } from "@/lib/submissions/ingest";
+import { uploadsAllowed, uploadsClosedReason } from "@/server/submissions/ingest";
 import { AltTextEditor } from "./_components/alt-text-editor";
 import { PageUpload } from "./_components/page-upload";
 import { UseVersionButton } from "./_components/use-version-button";

@@ -5,7 +5,7 @@ import { SpecOverlay } from "@/components/spec-overlay";
 import { SpecReport } from "@/components/spec-report";
 import { VerdictBadge } from "@/components/verdict-badge";
 import { getPieceForReview, type ReviewVersion } from "@/db/queries/review";
-import { requireAnthologyAccess } from "@/lib/auth/guard";
+import { requireAnthologyAccess } from "@/server/auth/guard";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS } from "@/lib/domain";
 import type { OverlaySpec } from "@/lib/pieces/overlay";
 import { editorMovesFrom } from "@/lib/pieces/status";

@@ -1,8 +1,7 @@
-import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
+import { z } from "zod";
+import { findAnthologyBySlug } from "@/db/queries/anthologies";
 import { findCall } from "@/db/queries/open-call";
-import { apiRoute, HttpError } from "@/lib/api";
-import { currentUser } from "@/lib/auth/guard";
-import { can } from "@/lib/auth/policy";
+import { apiRoute, currentUserMay, HttpError, readQuery } from "@/server/api";
 import { colourModeText } from "@/lib/call-spec";
 import { findPreset } from "@/lib/print/sizes";
 import { callPhase } from "@/lib/stages";
@@ -11,9 +10,12 @@ import {
   renderTemplatePng,
   TEMPLATE_FORMATS,
   templateFileName,
-  type TemplateFormat,
   type TemplateSpec,
 } from "@/lib/templates";
+
+const templateQuerySchema = z.object({
+  format: z.enum(TEMPLATE_FORMATS, { error: "Ask for format=png or format=pdf." }).default("png"),
+});
 
 /**
  * A page template at trim plus bleed (?format=png|pdf). Anyone may download it once the call is
@@ -21,19 +23,14 @@ import {
  */
 export const GET = apiRoute(async (request, { params }: { params: Promise<{ slug: string }> }) => {
   const { slug } = await params;
-  const format = new URL(request.url).searchParams.get("format") ?? "png";
-  if (!TEMPLATE_FORMATS.includes(format as TemplateFormat)) {
-    throw new HttpError(400, `Ask for format=png or format=pdf, not "${format}".`);
-  }
+  const { format } = readQuery(request, templateQuerySchema);
   const anthology = await findAnthologyBySlug(slug);
   const notHere = new HttpError(404, `No published open call called "${slug}".`);
   if (!anthology) throw notHere;
   const call = await findCall(anthology.id);
-  if (callPhase(call?.publishedAt ? call : null, anthology.stage, new Date()) === "unpublished") {
-    const user = await currentUser();
-    const role = user ? await findRole(anthology.id, user.id) : null;
-    if (!can(role, "anthology:view")) throw notHere;
-  }
+  const published =
+    callPhase(call?.publishedAt ? call : null, anthology.stage, new Date()) !== "unpublished";
+  if (!published && !(await currentUserMay(anthology.id, "anthology:view"))) throw notHere;
   const spec: TemplateSpec = {
     trimWidthMm: anthology.trimWidthMm,
     trimHeightMm: anthology.trimHeightMm,
@@ -51,7 +48,7 @@ export const GET = apiRoute(async (request, { params }: { params: Promise<{ slug
   return new Response(new Uint8Array(bytes), {
     headers: {
       "content-type": format === "png" ? "image/png" : "application/pdf",
-      "content-disposition": `attachment; filename="${templateFileName(anthology.slug, spec, format as TemplateFormat)}"`,
+      "content-disposition": `attachment; filename="${templateFileName(anthology.slug, spec, format)}"`,
       "content-length": String(bytes.byteLength),
       "cache-control": "no-cache",
     },

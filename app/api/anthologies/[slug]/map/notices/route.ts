@@ -1,5 +1,5 @@
 import { sendPageNotices } from "@/db/queries/page-map";
-import { apiRoute, requireApiAccess } from "@/lib/api";
+import { apiRoute, requireApiAccess } from "@/server/api";
 
 /** E-mails every contributor with placed pieces their page numbers; a notice already sent for the same pages is not sent again. */
 export const POST = apiRoute(

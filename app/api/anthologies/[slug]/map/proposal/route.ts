@@ -1,5 +1,5 @@
 import { loadMap, readMapState } from "@/db/queries/page-map";
-import { apiRoute, readJson, requireApiAccess } from "@/lib/api";
+import { apiRoute, readJson, requireApiAccess } from "@/server/api";
 import { checkMap } from "@/lib/map/check";
 import { countPasses } from "@/lib/map/passes";
 import { proposePlacement } from "@/lib/map/propose";

@@ -1,5 +1,5 @@
 import { movePieces } from "@/db/queries/review";
-import { apiRoute, readJson, requireApiAccess } from "@/lib/api";
+import { apiRoute, readJson, requireApiAccess } from "@/server/api";
 import { bulkStatusChangeSchema } from "@/lib/validations/review";
 
 /**

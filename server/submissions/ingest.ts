@@ -10,22 +10,17 @@ import { and, eq, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { Anthology } from "@/db/queries/anthologies";
 import { sendLoggedMail } from "@/db/queries/mail-log";
-import {
-  findCall,
-  refreshPieceVerdict,
-  SubmissionRefused,
-  type Call,
-  type Piece,
-} from "@/db/queries/submissions";
+import { findCall, refreshPieceVerdict, type Call, type Piece } from "@/db/queries/submissions";
 import type { PieceStatus } from "@/lib/domain";
+import { Refusal } from "@/lib/refusal";
 import { env } from "@/lib/env";
-import { simpleHtml } from "@/lib/mail";
+import { simpleHtml } from "@/server/mail";
 import { checkArtwork, type SpecReport } from "@/lib/print/check";
 import type { PrintSpec } from "@/lib/print/spec";
 import { mayUploadFiles, statusAfterNewFile } from "@/lib/pieces/status";
 import { isPieceVerdict, PIECE_VERDICT_LABELS, type PieceVerdict } from "@/lib/pieces/verdict";
 import { isCallOpen } from "@/lib/stages";
-import { maxUploadBytes, readStoredFile } from "@/lib/uploads";
+import { maxUploadBytes, readStoredFile } from "@/server/uploads";
 import type { ArtworkUploadInput } from "@/lib/validations/piece";
 import { makeThumbnail } from "./thumbnail";
 
@@ -83,12 +78,12 @@ export async function authoriseArtworkUpload(
   files: readonly { name: string; size: number }[],
   now = new Date(),
 ): Promise<UploadMetadata> {
-  if (!userId) throw new SubmissionRefused(403, "Sign in to upload files.");
-  if (files.length !== 1) throw new SubmissionRefused(400, "Upload one file per page.");
+  if (!userId) throw new Refusal(403, "Sign in to upload files.");
+  if (files.length !== 1) throw new Refusal(400, "Upload one file per page.");
   const file = files[0]!;
   const limit = maxUploadBytes();
   if (file.size > limit)
-    throw new SubmissionRefused(
+    throw new Refusal(
       413,
       `"${file.name}" is ${(file.size / 1048576).toFixed(1)} MB; a page file may be at most ${env().MAX_UPLOAD_MB} MB. Export it at the print size (or as a compressed PNG or high-quality JPEG) and try again.`,
     );
@@ -100,13 +95,13 @@ export async function authoriseArtworkUpload(
     .where(eq(p.id, input.pieceId))
     .limit(1);
   if (!row || row.piece.contributorId !== userId)
-    throw new SubmissionRefused(403, "You can only upload files to your own pieces.");
-  if (!row.page) throw new SubmissionRefused(404, `This piece has no page ${input.pageIndex}.`);
+    throw new Refusal(403, "You can only upload files to your own pieces.");
+  if (!row.page) throw new Refusal(404, `This piece has no page ${input.pageIndex}.`);
   const call = await findCall(row.anthology.id);
   if (!uploadsAllowed(row.piece.status, call, row.anthology, now))
-    throw new SubmissionRefused(409, uploadsClosedReason(row.piece.status));
+    throw new Refusal(409, uploadsClosedReason(row.piece.status));
   if (row.page.revision !== input.expectedRevision)
-    throw new SubmissionRefused(
+    throw new Refusal(
       409,
       `Page ${input.pageIndex} was replaced in another window since this one loaded; reload to see its current file before replacing it.`,
     );
@@ -157,7 +152,7 @@ export type IngestOptions = {
   enforceWindow?: boolean;
 };
 
-/** Runs the whole pipeline for one stored upload; see the module comment. Refusals throw SubmissionRefused. */
+/** Runs the whole pipeline for one stored upload; see the module comment. Refusals throw Refusal. */
 export async function ingestUpload(
   request: IngestRequest,
   options: IngestOptions = {},
@@ -169,9 +164,9 @@ export async function ingestUpload(
     .innerJoin(schema.anthologies, eq(schema.anthologies.id, p.anthologyId))
     .where(eq(p.id, request.pieceId))
     .limit(1);
-  if (!ctx) throw new SubmissionRefused(404, "There is no such piece.");
+  if (!ctx) throw new Refusal(404, "There is no such piece.");
   if (ctx.piece.contributorId !== request.uploadedBy)
-    throw new SubmissionRefused(403, "You can only upload files to your own pieces.");
+    throw new Refusal(403, "You can only upload files to your own pieces.");
   const call = await findCall(ctx.anthology.id);
 
   const bytes = options.bytes ?? (await readStoredFile(request.file.ufsUrl, maxUploadBytes()));
@@ -187,15 +182,15 @@ export async function ingestUpload(
   const outcome = await db.transaction(async (tx) => {
     // The piece row first, then the page: every writer takes them in this order.
     const [piece] = await tx.select().from(p).where(eq(p.id, request.pieceId)).for("update");
-    if (!piece) throw new SubmissionRefused(404, "There is no such piece.");
+    if (!piece) throw new Refusal(404, "There is no such piece.");
     if (options.enforceWindow !== false && !uploadsAllowed(piece.status, call, ctx.anthology, now))
-      throw new SubmissionRefused(409, uploadsClosedReason(piece.status));
+      throw new Refusal(409, uploadsClosedReason(piece.status));
     const [page] = await tx
       .select()
       .from(pp)
       .where(and(eq(pp.pieceId, request.pieceId), eq(pp.pageIndex, request.pageIndex)))
       .for("update");
-    if (!page) throw new SubmissionRefused(404, `This piece has no page ${request.pageIndex}.`);
+    if (!page) throw new Refusal(404, `This piece has no page ${request.pageIndex}.`);
 
     // A hook delivered twice must not make two versions of one stored file.
     const [already] = await tx

@@ -2,10 +2,8 @@ import "server-only";
 import { forbidden, notFound, redirect } from "next/navigation";
 import { auth } from "@/auth";
 import { findAnthologyBySlug, findRole, type Anthology } from "@/db/queries/anthologies";
-import type { Role } from "@/lib/domain";
-import { can, type Action } from "./policy";
-
-export type SessionUser = { id: string; name: string | null; email: string | null };
+import type { Role, SessionUser } from "@/lib/domain";
+import { can, type Action } from "@/lib/auth/policy";
 
 /** The signed-in person, or null. */
 export async function currentUser(): Promise<SessionUser | null> {
