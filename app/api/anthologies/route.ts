@@ -1,6 +1,7 @@
 import { apiRoute, readJson, requireApiUser } from "@/server/api";
 import { createAnthology, listMyAnthologies } from "@/db/queries/anthologies";
 import { anthologyInputSchema, anthologySpecFromInput, slugify } from "@/lib/validations/anthology";
+import type { AnthologyCreatedAnswer } from "@/lib/wire/anthologies";
 
 /** The signed-in person's anthologies with their role in each. */
 export const GET = apiRoute(async () => {
@@ -23,7 +24,9 @@ export const POST = apiRoute(async (request) => {
     slugify(input.title),
   );
   return Response.json(
-    { anthology: { id: anthology.id, slug: anthology.slug, title: anthology.title } },
+    {
+      anthology: { id: anthology.id, slug: anthology.slug, title: anthology.title },
+    } satisfies AnthologyCreatedAnswer,
     { status: 201 },
   );
 });

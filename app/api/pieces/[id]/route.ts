@@ -8,6 +8,11 @@ import {
 import { apiRoute, HttpError, readJson, requirePieceViewer } from "@/server/api";
 import { uploadsAllowed } from "@/server/submissions/ingest";
 import { pieceActionSchema } from "@/lib/validations/piece";
+import type {
+  AltTextSavedAnswer,
+  PieceWithdrawnAnswer,
+  VersionChosenAnswer,
+} from "@/lib/wire/submissions";
 
 type Context = { params: Promise<{ id: string }> };
 
@@ -29,15 +34,15 @@ export const PATCH = apiRoute(async (request, { params }: Context) => {
   const action = await readJson(request, pieceActionSchema);
   if (action.action === "withdraw") {
     const status = await withdrawPiece(pieceId, user.id, action.reason);
-    return Response.json({ status });
+    return Response.json({ status } satisfies PieceWithdrawnAnswer);
   }
   if (action.action === "use-version") {
     const call = await findCall(anthology.id);
     const result = await useVersion(pieceId, user.id, action, (status) =>
       uploadsAllowed(status, call, anthology),
     );
-    return Response.json(result);
+    return Response.json(result satisfies VersionChosenAnswer);
   }
   await setAltText(pieceId, user.id, action.pageIndex, action.altText);
-  return Response.json({ ok: true });
+  return Response.json({ ok: true } satisfies AltTextSavedAnswer);
 });

@@ -19,6 +19,8 @@ import {
   type AnthologyParsed,
 } from "@/lib/validations/anthology";
 import { showServerFieldErrors } from "@/components/ui/server-field-errors";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import type { AnthologyCreatedAnswer } from "@/lib/wire/anthologies";
 
 type FormValues = Omit<AnthologyInput, "inks"> & { inkRows: { name: string }[] };
 
@@ -77,21 +79,18 @@ export function AnthologyForm() {
     setSaving(true);
     setServerError(undefined);
     try {
-      const response = await fetch("/api/anthologies", {
+      const created = await fetchJson<AnthologyCreatedAnswer>("/api/anthologies", {
         method: "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify(values),
+        json: values,
+        failure: "The anthology was not saved.",
+        unreachable: "Could not reach Quireline. Check your connection; nothing was saved.",
       });
-      const body = await response.json();
-      if (!response.ok) {
-        showServerFieldErrors(setError, body.fields);
-        setServerError(body.error ?? "The anthology was not saved.");
-        return;
-      }
-      router.push(`/studio/${body.anthology.slug}`);
+      router.push(`/studio/${created.anthology.slug}`);
       router.refresh();
-    } catch {
-      setServerError("Could not reach Quireline. Check your connection; nothing was saved.");
+    } catch (error) {
+      if (!(error instanceof ApiError)) throw error;
+      showServerFieldErrors(setError, error.fields);
+      setServerError(error.message);
     } finally {
       setSaving(false);
     }

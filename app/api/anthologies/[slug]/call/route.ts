@@ -12,6 +12,7 @@ import {
   newCallDefaults,
   termsOf,
 } from "@/lib/validations/call";
+import type { CallAnswer, CallSavedAnswer } from "@/lib/wire/open-call";
 
 type Context = { params: Promise<{ slug: string }> };
 
@@ -40,7 +41,7 @@ export const GET = apiRoute(async (_request, { params }: Context) => {
     currency: anthology.currency,
     publicPath: `/calls/${anthology.slug}`,
     spec: callSpecSummary(anthology, row?.allowedInks),
-  });
+  } satisfies CallAnswer);
 });
 
 /** Writes the call. Editors may change everything but the payment terms, which are the lead's. */
@@ -60,7 +61,7 @@ export const PUT = apiRoute(async (request, { params }: Context) => {
   }
   const row = await saveCall(anthology.id, record);
   return Response.json(
-    { call: callJson(row), form: callInputFromRecord(toCallRecord(row)) },
+    { call: callJson(row), form: callInputFromRecord(toCallRecord(row)) } satisfies CallSavedAnswer,
     { status: existing ? 200 : 201 },
   );
 });

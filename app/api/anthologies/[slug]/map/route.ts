@@ -1,7 +1,7 @@
 import { changeMap, loadMap } from "@/db/queries/page-map";
 import { apiRoute, readJson, readQuery, requireApiAccess } from "@/server/api";
 import { can } from "@/lib/auth/policy";
-import type { MapChangeAnswer, MapRefusalAnswer } from "@/lib/map-edits/payload";
+import type { MapChangeAnswer, MapPayload, MapRefusalAnswer } from "@/lib/map-edits/payload";
 import { mapChangeRequestSchema, mapQuerySchema } from "@/lib/validations/page-map";
 
 type Context = { params: Promise<{ slug: string }> };
@@ -11,10 +11,10 @@ export const GET = apiRoute(async (request, { params }: Context) => {
   const { slug } = await params;
   const { anthology, role } = await requireApiAccess(slug, "map:view");
   return Response.json(
-    await loadMap(anthology, {
+    (await loadMap(anthology, {
       canEdit: can(role, "map:edit"),
       copies: readQuery(request, mapQuerySchema).copies,
-    }),
+    })) satisfies MapPayload,
   );
 });
 

@@ -12,6 +12,7 @@ import { apiRoute, HttpError, readJson, requireApiAccess, requireApiUser } from 
 import { callPhase } from "@/lib/stages";
 import { formatInZone } from "@/lib/time-zones";
 import { pieceSchemaFor } from "@/lib/validations/piece";
+import type { PieceCreatedAnswer } from "@/lib/wire/submissions";
 
 type Context = { params: Promise<{ slug: string }> };
 
@@ -67,7 +68,7 @@ export const POST = apiRoute(async (request, { params }: Context) => {
         verdict: piece.verdict,
       },
       url: `/studio/${anthology.slug}/my-pieces/${piece.id}`,
-    },
+    } satisfies PieceCreatedAnswer,
     { status: 201 },
   );
 });

@@ -3,6 +3,7 @@ import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { reviewStageMove } from "@/lib/stages";
 import { formatInZone } from "@/lib/time-zones";
 import { stageMoveSchema } from "@/lib/validations/call";
+import type { StageMovedAnswer } from "@/lib/wire/open-call";
 
 /**
  * Moves the anthology one stage forward ({ "to": "call-open" }). 409 with every problem when what
@@ -38,5 +39,9 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ slu
       "Someone else moved the stage just now. Reload the page to see where it is.",
     );
   }
-  return Response.json({ stage: to, from: anthology.stage, cautions: review.cautions });
+  return Response.json({
+    stage: to,
+    from: anthology.stage,
+    cautions: review.cautions,
+  } satisfies StageMovedAnswer);
 });

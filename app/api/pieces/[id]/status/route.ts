@@ -1,6 +1,7 @@
 import { movePiece } from "@/db/queries/review";
 import { apiRoute, HttpError, readJson, requirePieceApiAccess } from "@/server/api";
 import { pieceStatusChangeSchema } from "@/lib/validations/review";
+import type { PieceMoveAnswer } from "@/lib/wire/review";
 
 /** An editor moves one piece; 409 with the reason when the move is refused. */
 export const POST = apiRoute(async (request, { params }: { params: Promise<{ id: string }> }) => {
@@ -12,5 +13,5 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ id:
     expectedFrom: input.from,
   });
   if (!outcome.changed) throw new HttpError(409, outcome.reason, { refused: outcome });
-  return Response.json(outcome);
+  return Response.json(outcome satisfies PieceMoveAnswer);
 });

@@ -16,6 +16,8 @@ import {
   type PieceParsed,
 } from "@/lib/validations/piece";
 import { showServerFieldErrors } from "@/components/ui/server-field-errors";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import type { PieceCreatedAnswer } from "@/lib/wire/submissions";
 
 /** The new-piece form: what the piece is, its inks and credit; files are uploaded on the next screen. */
 export function PieceForm({
@@ -61,30 +63,23 @@ export function PieceForm({
 
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null);
-    let response: Response;
     try {
-      response = await fetch(`/api/anthologies/${encodeURIComponent(slug)}/pieces`, {
-        method: "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({ ...values, altTexts: values.altTexts.slice(0, values.pageCount) }),
-      });
-    } catch {
-      setProblem(
-        "Quireline could not be reached. Check your connection and send the form again; nothing was lost.",
+      const created = await fetchJson<PieceCreatedAnswer>(
+        `/api/anthologies/${encodeURIComponent(slug)}/pieces`,
+        {
+          method: "POST",
+          json: { ...values, altTexts: values.altTexts.slice(0, values.pageCount) },
+          failure: (status) => `The piece could not be saved (error ${status}).`,
+          unreachable:
+            "Quireline could not be reached. Check your connection and send the form again; nothing was lost.",
+        },
       );
-      return;
+      router.push(created.url);
+    } catch (error) {
+      if (!(error instanceof ApiError)) throw error;
+      showServerFieldErrors(setError, error.fields);
+      setProblem(error.message);
     }
-    const body = (await response.json().catch(() => ({}))) as {
-      url?: string;
-      error?: string;
-      fields?: Record<string, string[]>;
-    };
-    if (response.ok && body.url) {
-      router.push(body.url);
-      return;
-    }
-    showServerFieldErrors(setError, body.fields);
-    setProblem(body.error ?? `The piece could not be saved (error ${response.status}).`);
   });
 
   const e = formState.errors;

@@ -18,6 +18,8 @@ import {
   type CallParsed,
 } from "@/lib/validations/call";
 import { showServerFieldErrors } from "@/components/ui/server-field-errors";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import type { CallSavedAnswer } from "@/lib/wire/open-call";
 
 type Props = {
   slug: string;
@@ -103,28 +105,26 @@ export function CallForm({
   const onSubmit = handleSubmit(async (values) => {
     setNotice(undefined);
     try {
-      const response = await fetch(`/api/anthologies/${encodeURIComponent(slug)}/call`, {
-        method: "PUT",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify(values),
-      });
-      const body = await response.json().catch(() => ({}));
-      if (!response.ok) {
-        showServerFieldErrors(setError, body.fields);
-        setNotice({ tone: "error", text: body.error ?? "The call was not saved." });
-        return;
-      }
-      reset(body.form as CallParsed);
+      const saved = await fetchJson<CallSavedAnswer>(
+        `/api/anthologies/${encodeURIComponent(slug)}/call`,
+        {
+          method: "PUT",
+          json: values,
+          failure: "The call was not saved.",
+          unreachable:
+            "Could not reach Quireline. Check your connection; your changes are still in the form.",
+        },
+      );
+      reset(saved.form);
       setNotice({
         tone: "info",
         text: "Saved. The public page shows these details as soon as the call is open.",
       });
       router.refresh();
-    } catch {
-      setNotice({
-        tone: "error",
-        text: "Could not reach Quireline. Check your connection; your changes are still in the form.",
-      });
+    } catch (error) {
+      if (!(error instanceof ApiError)) throw error;
+      showServerFieldErrors(setError, error.fields);
+      setNotice({ tone: "error", text: error.message });
     }
   });
 

@@ -4,7 +4,9 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
 import { ANTHOLOGY_STAGES, STAGE_LABELS, type AnthologyStage } from "@/lib/domain";
+import type { StageMovedAnswer, StageRefusalAnswer } from "@/lib/wire/open-call";
 
 const MOVE_LABELS: Record<AnthologyStage, string> = {
   planning: "Back to planning",
@@ -39,25 +41,20 @@ export function StageControls({ slug, stage, next, problems, cautions, canAdvanc
     setBusy(true);
     setError(undefined);
     try {
-      const response = await fetch(`/api/anthologies/${encodeURIComponent(slug)}/stage`, {
+      await fetchJson<StageMovedAnswer>(`/api/anthologies/${encodeURIComponent(slug)}/stage`, {
         method: "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({ to: next }),
+        json: { to: next },
+        failure: "The stage did not move.",
+        unreachable: "Could not reach Quireline. Check your connection and try again.",
       });
-      const body = await response.json().catch(() => ({}));
-      if (!response.ok) {
-        setError({
-          text: body.error ?? "The stage did not move.",
-          problems: Array.isArray(body.problems) && body.problems.length > 1 ? body.problems : [],
-        });
-        return;
-      }
       setConfirming(false);
       router.refresh();
-    } catch {
+    } catch (caught) {
+      if (!(caught instanceof ApiError)) throw caught;
+      const { problems } = caught.body as Partial<StageRefusalAnswer>;
       setError({
-        text: "Could not reach Quireline. Check your connection and try again.",
-        problems: [],
+        text: caught.message,
+        problems: Array.isArray(problems) && problems.length > 1 ? problems : [],
       });
     } finally {
       setBusy(false);

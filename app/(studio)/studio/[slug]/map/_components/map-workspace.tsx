@@ -11,6 +11,7 @@ import {
   type DragStartEvent,
 } from "@dnd-kit/core";
 import { useEffect, useMemo, useState } from "react";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -155,26 +156,19 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
     setProposalBusy(true);
     setFeedback(null);
     try {
-      const response = await fetch(`/api/anthologies/${slug}/map/proposal`, {
-        method: "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({ version: map.version, copies }),
-      });
-      const body = (await response.json().catch(() => null)) as
-        (ProposalAnswer & MapRefusalAnswer) | null;
-      if (response.ok && body) setProposal(body);
-      else {
-        if (body?.map) queryClient.setQueryData(mapKey(slug), body.map);
-        setFeedback({
-          tone: response.status === 409 ? "warn" : "error",
-          text: body?.error ?? `No proposal (${response.status}).`,
-        });
-      }
-    } catch {
-      setFeedback({
-        tone: "error",
-        text: "The server did not answer; no proposal was made. Try again.",
-      });
+      setProposal(
+        await fetchJson<ProposalAnswer>(`/api/anthologies/${slug}/map/proposal`, {
+          method: "POST",
+          json: { version: map.version, copies },
+          failure: (status) => `No proposal (${status}).`,
+          unreachable: "The server did not answer; no proposal was made. Try again.",
+        }),
+      );
+    } catch (error) {
+      if (!(error instanceof ApiError)) throw error;
+      const fresh = (error.body as Partial<MapRefusalAnswer>).map;
+      if (fresh) queryClient.setQueryData(mapKey(slug), fresh);
+      setFeedback({ tone: error.status === 409 ? "warn" : "error", text: error.message });
     } finally {
       setProposalBusy(false);
     }
@@ -201,15 +195,12 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
     setNoticesBusy(true);
     setNotices(null);
     try {
-      const response = await fetch(`/api/anthologies/${slug}/map/notices`, { method: "POST" });
-      const body = (await response.json().catch(() => null)) as
-        (NoticesAnswer & { error?: string }) | null;
-      if (!response.ok || !body) {
-        setNotices({
-          tone: "error",
-          text: body?.error ?? `No notices were sent (${response.status}).`,
-        });
-      } else if (body.contributors === 0) {
+      const body = await fetchJson<NoticesAnswer>(`/api/anthologies/${slug}/map/notices`, {
+        method: "POST",
+        failure: (status) => `No notices were sent (${status}).`,
+        unreachable: "The server did not answer; try again.",
+      });
+      if (body.contributors === 0) {
         setNotices({
           tone: "info",
           text: "No pieces are on the map yet, so there is nobody to tell.",
@@ -221,8 +212,11 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
         if (body.failed) parts.push(`${body.failed} could not be sent (see the mail log)`);
         setNotices({ tone: body.failed ? "error" : "info", text: `${parts.join("; ")}.` });
       }
-    } catch {
-      setNotices({ tone: "error", text: "The server did not answer; try again." });
+    } catch (error) {
+      setNotices({
+        tone: "error",
+        text: error instanceof Error ? error.message : "The server did not answer; try again.",
+      });
     } finally {
       setNoticesBusy(false);
     }

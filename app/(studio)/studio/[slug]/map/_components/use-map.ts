@@ -1,5 +1,6 @@
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useCallback, useRef, useState } from "react";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
 import { checkMap } from "@/lib/map/check";
 import { countPasses } from "@/lib/map/passes";
 import { checkedChange } from "@/lib/map-edits/apply";
@@ -10,26 +11,17 @@ export type Feedback = { tone: "info" | "error" | "warn"; text: string; pages?: 
 
 export const mapKey = (slug: string) => ["page-map", slug] as const;
 
-async function readBody<T>(response: Response): Promise<T | null> {
-  try {
-    return (await response.json()) as T;
-  } catch {
-    return null;
-  }
-}
-
 /** The map from the server (seeded with the server-rendered copy). */
 export function useMapQuery(slug: string, initial: MapPayload) {
   return useQuery({
     queryKey: mapKey(slug),
     initialData: initial,
-    queryFn: async () => {
-      const response = await fetch(`/api/anthologies/${slug}/map`, { cache: "no-store" });
-      const body = await readBody<MapPayload & { error?: string }>(response);
-      if (!response.ok || !body)
-        throw new Error(body?.error ?? `The map could not be loaded (${response.status}).`);
-      return body;
-    },
+    queryFn: ({ signal }) =>
+      fetchJson<MapPayload>(`/api/anthologies/${slug}/map`, {
+        cache: "no-store",
+        signal,
+        failure: (status) => `The map could not be loaded (${status}).`,
+      }),
     refetchOnWindowFocus: true,
     staleTime: 5_000,
   });
@@ -71,34 +63,34 @@ export function useMapChanges(slug: string) {
       setSaving((n) => n + 1);
       const run = async (): Promise<boolean> => {
         try {
-          const response = await fetch(`/api/anthologies/${slug}/map`, {
+          const body = await fetchJson<MapChangeAnswer>(`/api/anthologies/${slug}/map`, {
             method: "POST",
-            headers: { "content-type": "application/json" },
-            body: JSON.stringify({ version: (confirmed.current ?? map).version, change }),
+            json: { version: (confirmed.current ?? map).version, change },
+            failure: (status) => `The change was not saved (${status}).`,
+            unreachable: "the server did not answer",
           });
-          if (response.ok) {
-            const body = await readBody<MapChangeAnswer>(response);
-            if (!body) throw new Error("The server's answer could not be read.");
-            confirmed.current = body;
-            queryClient.setQueryData<MapPayload>(mapKey(slug), body);
-            if (!opts.quiet) setFeedback({ tone: "info", text: `Saved. ${body.summary}` });
-            return true;
-          }
-          const body = await readBody<MapRefusalAnswer>(response);
-          const fallback = body?.map ?? confirmed.current ?? map;
-          confirmed.current = fallback;
-          queryClient.setQueryData<MapPayload>(mapKey(slug), fallback);
-          setFeedback({
-            tone: response.status === 409 ? "warn" : "error",
-            text: body?.error ?? `The change was not saved (${response.status}).`,
-            pages: body?.pages,
-          });
-          return false;
+          confirmed.current = body;
+          queryClient.setQueryData<MapPayload>(mapKey(slug), body);
+          if (!opts.quiet) setFeedback({ tone: "info", text: `Saved. ${body.summary}` });
+          return true;
         } catch (error) {
+          if (error instanceof ApiError && error.status >= 400) {
+            // Refused: the server's fresh map on 409, otherwise what it last saved.
+            const refusal = error.body as Partial<MapRefusalAnswer>;
+            const fallback = refusal.map ?? confirmed.current ?? map;
+            confirmed.current = fallback;
+            queryClient.setQueryData<MapPayload>(mapKey(slug), fallback);
+            setFeedback({
+              tone: error.status === 409 ? "warn" : "error",
+              text: error.message,
+              pages: refusal.pages,
+            });
+            return false;
+          }
           queryClient.setQueryData<MapPayload>(mapKey(slug), confirmed.current ?? map);
           setFeedback({
             tone: "error",
-            text: `The change was not saved: ${error instanceof Error ? error.message : "the server did not answer"}. The map shows what is saved; try again.`,
+            text: `The change was not saved: ${error instanceof Error ? error.message.replace(/\.$/, "") : "the server did not answer"}. The map shows what is saved; try again.`,
           });
           return false;
         } finally {

@@ -10,6 +10,8 @@ import { Notice } from "@/components/ui/notice";
 import { ROLE_LABELS, type Role } from "@/lib/domain";
 import { inviteSchema } from "@/lib/validations/anthology";
 import { showServerFieldErrors } from "@/components/ui/server-field-errors";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import type { InvitationSentAnswer } from "@/lib/wire/anthologies";
 
 type InviteValues = z.input<typeof inviteSchema>;
 
@@ -22,19 +24,19 @@ export function InviteForm({ slug, roles }: { slug: string; roles: Role[] }) {
   });
   const onSubmit = handleSubmit(async (values) => {
     setResult(undefined);
-    const response = await fetch(`/api/anthologies/${slug}/invitations`, {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(values),
-    });
-    const body = await response.json();
-    if (!response.ok) {
-      showServerFieldErrors(setError, body.fields);
-      setResult({ tone: "error", text: body.error ?? "The invitation was not sent." });
-      return;
+    try {
+      const sent = await fetchJson<InvitationSentAnswer>(`/api/anthologies/${slug}/invitations`, {
+        method: "POST",
+        json: values,
+        failure: "The invitation was not sent.",
+      });
+      setResult({ tone: "info", text: `Invitation sent to ${sent.invited}.` });
+      reset({ email: "", role: values.role });
+    } catch (error) {
+      if (!(error instanceof ApiError)) throw error;
+      showServerFieldErrors(setError, error.fields);
+      setResult({ tone: "error", text: error.message });
     }
-    setResult({ tone: "info", text: `Invitation sent to ${body.invited}.` });
-    reset({ email: "", role: values.role });
   });
   const e = formState.errors;
   return (

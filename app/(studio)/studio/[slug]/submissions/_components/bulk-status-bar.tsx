@@ -7,7 +7,8 @@ import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { canMove, STATUSES_THAT_EMAIL } from "@/lib/pieces/status";
-import { ApiError, fetchJson } from "./fetch-json";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import type { BulkMoveAnswer } from "@/lib/wire/review";
 
 /** Statuses an editor can move pieces to (withdrawing is the contributor's own act). */
 const TARGETS: PieceStatus[] = [
@@ -17,9 +18,6 @@ const TARGETS: PieceStatus[] = [
   "accepted",
   "declined",
 ];
-
-type Outcome = { pieceId: number; changed: boolean; reason?: string; mailed?: boolean | null };
-type BulkAnswer = { changed: Outcome[]; refused: Outcome[] };
 
 /** The bar shown while rows are selected: move them all to one status, with an optional message. */
 export function BulkStatusBar({
@@ -36,14 +34,14 @@ export function BulkStatusBar({
   const [message, setMessage] = useState("");
   const [fieldError, setFieldError] = useState<string>();
   const [answer, setAnswer] = useState<{
-    answer: BulkAnswer;
+    answer: BulkMoveAnswer;
     to: PieceStatus;
     titles: Map<number, string>;
   }>();
 
   const mutation = useMutation({
     mutationFn: (body: { pieceIds: number[]; to: PieceStatus; message?: string }) =>
-      fetchJson<BulkAnswer>(`/api/anthologies/${slug}/submissions/status`, {
+      fetchJson<BulkMoveAnswer>(`/api/anthologies/${slug}/submissions/status`, {
         method: "POST",
         json: body,
       }),
@@ -70,8 +68,8 @@ export function BulkStatusBar({
       if (result.changed.length) setMessage("");
       onDone(result.changed.map((c) => c.pieceId));
     } catch (error) {
-      if (error instanceof ApiError && error.fields.message?.[0])
-        setFieldError(error.fields.message[0]);
+      if (error instanceof ApiError && error.fieldMessage("message"))
+        setFieldError(error.fieldMessage("message"));
     }
   };
 
@@ -159,7 +157,7 @@ function BulkResult({
   titles,
   onDismiss,
 }: {
-  answer: BulkAnswer;
+  answer: BulkMoveAnswer;
   to: PieceStatus;
   titles: Map<number, string>;
   onDismiss: () => void;

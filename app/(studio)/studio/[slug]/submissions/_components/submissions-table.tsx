@@ -16,33 +16,14 @@ import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { VerdictBadge } from "@/components/verdict-badge";
-import {
-  PIECE_KIND_LABELS,
-  PIECE_STATUS_LABELS,
-  PIECE_STATUSES,
-  type PieceKind,
-  type PieceStatus,
-} from "@/lib/domain";
+import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, PIECE_STATUSES } from "@/lib/domain";
 import { PIECE_VERDICT_LABELS, PIECE_VERDICTS } from "@/lib/pieces/verdict";
 import { PAGE_SIZES, type SubmissionSort } from "@/lib/validations/review";
+import { fetchJson } from "@/components/api/fetch-json";
+import type { SubmissionRow, SubmissionsPage } from "@/lib/wire/review";
 import { BulkStatusBar } from "./bulk-status-bar";
-import { fetchJson } from "./fetch-json";
 import { CheckboxMenu } from "./filter-menu";
 import { useListQuery } from "./use-list-query";
-
-type Row = {
-  id: number;
-  title: string;
-  kind: PieceKind;
-  pageCount: number;
-  inks: string[];
-  verdict: string;
-  status: PieceStatus;
-  creditLine: string;
-  updatedAt: string;
-  contributor: { id: string; name: string | null; email: string | null };
-};
-type Page = { rows: Row[]; total: number; page: number; pageSize: number };
 
 const COLUMN_LABELS: Record<SubmissionSort, string> = {
   contributor: "Contributor",
@@ -77,7 +58,7 @@ export function SubmissionsTable({ slug }: { slug: string }) {
   const result = useQuery({
     queryKey,
     queryFn: ({ signal }) =>
-      fetchJson<Page>(`/api/anthologies/${slug}/submissions?${apiSearch}`, { signal }),
+      fetchJson<SubmissionsPage>(`/api/anthologies/${slug}/submissions?${apiSearch}`, { signal }),
     placeholderData: keepPreviousData,
   });
   const data = result.data;
@@ -107,7 +88,7 @@ export function SubmissionsTable({ slug }: { slug: string }) {
     });
   };
 
-  const columns = useMemo<ColumnDef<Row>[]>(
+  const columns = useMemo<ColumnDef<SubmissionRow>[]>(
     () => [
       {
         id: "select",

@@ -1,4 +1,5 @@
 import { sendPageNotices } from "@/db/queries/page-map";
+import type { NoticesAnswer } from "@/lib/map-edits/payload";
 import { apiRoute, requireApiAccess } from "@/server/api";
 
 /** E-mails every contributor with placed pieces their page numbers; a notice already sent for the same pages is not sent again. */
@@ -6,6 +7,6 @@ export const POST = apiRoute(
   async (_request, { params }: { params: Promise<{ slug: string }> }) => {
     const { slug } = await params;
     const { anthology } = await requireApiAccess(slug, "map:edit");
-    return Response.json(await sendPageNotices(anthology));
+    return Response.json((await sendPageNotices(anthology)) satisfies NoticesAnswer);
   },
 );

@@ -1,6 +1,7 @@
 import { movePieces } from "@/db/queries/review";
 import { apiRoute, readJson, requireApiAccess } from "@/server/api";
 import { bulkStatusChangeSchema } from "@/lib/validations/review";
+import type { BulkMoveAnswer } from "@/lib/wire/review";
 
 /**
  * Moves several pieces to one status. Each piece is checked and changed on its own, so the answer
@@ -11,5 +12,5 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ slu
   const { anthology, user } = await requireApiAccess(slug, "pieces:review");
   const input = await readJson(request, bulkStatusChangeSchema);
   const result = await movePieces(anthology, user, input.pieceIds, input.to, input.message);
-  return Response.json(result);
+  return Response.json(result satisfies BulkMoveAnswer);
 });

@@ -1,8 +1,10 @@
 "use client";
 
 import { useState } from "react";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
+import type { AltTextSavedAnswer } from "@/lib/wire/submissions";
 
 /** The page's description for readers who cannot see it; saved on its own. */
 export function AltTextEditor({
@@ -23,23 +25,16 @@ export function AltTextEditor({
     setBusy(true);
     setMessage(null);
     try {
-      const response = await fetch(`/api/pieces/${pieceId}`, {
+      await fetchJson<AltTextSavedAnswer>(`/api/pieces/${pieceId}`, {
         method: "PATCH",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({ action: "alt-text", pageIndex, altText: value }),
+        json: { action: "alt-text", pageIndex, altText: value },
+        failure: (status) => `Not saved (error ${status}).`,
       });
-      const body = (await response.json().catch(() => ({}))) as {
-        error?: string;
-        fields?: Record<string, string[]>;
-      };
-      if (!response.ok)
-        throw new Error(
-          body.fields?.altText?.[0] ?? body.error ?? `Not saved (error ${response.status}).`,
-        );
       setSaved(value.trim());
       setMessage("Saved.");
     } catch (e) {
-      setMessage(e instanceof Error ? e.message : "Not saved.");
+      if (e instanceof ApiError) setMessage(e.fieldMessage("altText") ?? e.message);
+      else setMessage(e instanceof Error ? e.message : "Not saved.");
     } finally {
       setBusy(false);
     }

@@ -2,7 +2,9 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { fetchJson } from "@/components/api/fetch-json";
 import { Button } from "@/components/ui/button";
+import type { VersionChosenAnswer } from "@/lib/wire/submissions";
 
 /** Makes an earlier (or parked) version the page's current file. */
 export function UseVersionButton({
@@ -25,19 +27,11 @@ export function UseVersionButton({
     setBusy(true);
     setError(null);
     try {
-      const response = await fetch(`/api/pieces/${pieceId}`, {
+      await fetchJson<VersionChosenAnswer>(`/api/pieces/${pieceId}`, {
         method: "PATCH",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({
-          action: "use-version",
-          pageIndex,
-          versionId,
-          expectedRevision: revision,
-        }),
+        json: { action: "use-version", pageIndex, versionId, expectedRevision: revision },
+        failure: (status) => `That did not work (error ${status}).`,
       });
-      const body = (await response.json().catch(() => ({}))) as { error?: string };
-      if (!response.ok)
-        throw new Error(body.error ?? `That did not work (error ${response.status}).`);
       router.refresh();
     } catch (e) {
       setError(e instanceof Error ? e.message : "That did not work.");

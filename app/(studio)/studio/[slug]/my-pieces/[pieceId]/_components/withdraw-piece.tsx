@@ -2,9 +2,11 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { fetchJson } from "@/components/api/fetch-json";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import type { PieceWithdrawnAnswer } from "@/lib/wire/submissions";
 
 /** Withdraw the piece, after a confirmation step that says what it means. */
 export function WithdrawPiece({ pieceId, title }: { pieceId: number; title: string }) {
@@ -18,16 +20,11 @@ export function WithdrawPiece({ pieceId, title }: { pieceId: number; title: stri
     setBusy(true);
     setError(null);
     try {
-      const response = await fetch(`/api/pieces/${pieceId}`, {
+      await fetchJson<PieceWithdrawnAnswer>(`/api/pieces/${pieceId}`, {
         method: "PATCH",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({ action: "withdraw", reason: reason.trim() || undefined }),
+        json: { action: "withdraw", reason: reason.trim() || undefined },
+        failure: (status) => `The piece could not be withdrawn (error ${status}).`,
       });
-      const body = (await response.json().catch(() => ({}))) as { error?: string };
-      if (!response.ok)
-        throw new Error(
-          body.error ?? `The piece could not be withdrawn (error ${response.status}).`,
-        );
       setAsking(false);
       router.refresh();
     } catch (e) {

@@ -7,14 +7,8 @@ import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { editorNoteSchema, type EditorNoteInput } from "@/lib/validations/review";
-import { ApiError, fetchJson } from "../../_components/fetch-json";
-
-type Note = {
-  id: number;
-  body: string;
-  createdAt: string;
-  author: { id: string; name: string | null };
-};
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import type { NoteAddedAnswer, NotesAnswer } from "@/lib/wire/review";
 
 const at = new Intl.DateTimeFormat(undefined, { dateStyle: "medium", timeStyle: "short" });
 
@@ -24,8 +18,7 @@ export function EditorNotes({ pieceId }: { pieceId: number }) {
   const queryKey = ["piece-notes", pieceId];
   const notes = useQuery({
     queryKey,
-    queryFn: ({ signal }) =>
-      fetchJson<{ notes: Note[] }>(`/api/pieces/${pieceId}/notes`, { signal }),
+    queryFn: ({ signal }) => fetchJson<NotesAnswer>(`/api/pieces/${pieceId}/notes`, { signal }),
   });
   const { register, handleSubmit, reset, setError, formState } = useForm<EditorNoteInput>({
     resolver: zodResolver(editorNoteSchema),
@@ -33,16 +26,16 @@ export function EditorNotes({ pieceId }: { pieceId: number }) {
   });
   const add = useMutation({
     mutationFn: (values: EditorNoteInput) =>
-      fetchJson<{ note: Note }>(`/api/pieces/${pieceId}/notes`, { method: "POST", json: values }),
+      fetchJson<NoteAddedAnswer>(`/api/pieces/${pieceId}/notes`, { method: "POST", json: values }),
     onSuccess: ({ note }) => {
-      queryClient.setQueryData<{ notes: Note[] }>(queryKey, (old) => ({
+      queryClient.setQueryData<NotesAnswer>(queryKey, (old) => ({
         notes: [note, ...(old?.notes ?? [])],
       }));
       reset({ body: "" });
     },
     onError: (error) => {
-      if (error instanceof ApiError && error.fields.body?.[0])
-        setError("body", { message: error.fields.body[0] });
+      const message = error instanceof ApiError ? error.fieldMessage("body") : undefined;
+      if (message) setError("body", { message });
     },
   });
   const onSubmit = handleSubmit((values) => add.mutateAsync(values).catch(() => undefined));

@@ -8,9 +8,8 @@ import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { STATUSES_THAT_EMAIL } from "@/lib/pieces/status";
-import { ApiError, fetchJson } from "../../_components/fetch-json";
-
-type Moved = { changed: true; from: PieceStatus; to: PieceStatus; mailed: boolean | null };
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import type { PieceMoveAnswer } from "@/lib/wire/review";
 
 /** Moves this piece to another status, with a message to the contributor (required to ask for a fix). */
 export function StatusChangeForm({
@@ -29,11 +28,11 @@ export function StatusChangeForm({
   const [to, setTo] = useState<PieceStatus | "">("");
   const [message, setMessage] = useState("");
   const [fieldError, setFieldError] = useState<string>();
-  const [done, setDone] = useState<Moved>();
+  const [done, setDone] = useState<PieceMoveAnswer>();
 
   const mutation = useMutation({
     mutationFn: (body: { to: PieceStatus; from: PieceStatus; message?: string }) =>
-      fetchJson<Moved>(`/api/pieces/${pieceId}/status`, { method: "POST", json: body }),
+      fetchJson<PieceMoveAnswer>(`/api/pieces/${pieceId}/status`, { method: "POST", json: body }),
   });
 
   if (moves.length === 0) {
@@ -65,8 +64,8 @@ export function StatusChangeForm({
       setMessage("");
       startRefresh(() => router.refresh());
     } catch (error) {
-      if (error instanceof ApiError && error.fields.message?.[0])
-        setFieldError(error.fields.message[0]);
+      if (error instanceof ApiError && error.fieldMessage("message"))
+        setFieldError(error.fieldMessage("message"));
     }
   };
 

@@ -3,8 +3,11 @@
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useState, type ReactNode } from "react";
 
-/** One query cache for the review screens; made per browser tab, never shared between requests. */
-export function ReviewQueryProvider({ children }: { children: ReactNode }) {
+/**
+ * The studio's one query cache (submissions, notes, the page map), made per browser tab and never
+ * shared between requests. Screens that need fresher data set their own staleTime.
+ */
+export function QueryProvider({ children }: { children: ReactNode }) {
   const [client] = useState(
     () =>
       new QueryClient({
