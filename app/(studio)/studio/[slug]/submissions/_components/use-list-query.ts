@@ -9,6 +9,12 @@ import {
 
 const DEFAULT_QUERY = submissionsQuerySchema.parse({});
 
+/** Changes part of the table's query; `replace` rewrites the current history entry (typing a search). */
+export type SetListQuery = (
+  patch: Partial<SubmissionsQuery>,
+  options?: { replace?: boolean },
+) => void;
+
 /**
  * The table's query (filters, search, sort, page) lives in the address bar, so a reload or a
  * shared link shows the same view, and Back undoes a filter. An address the schema rejects falls
@@ -37,8 +43,8 @@ export function useListQuery() {
    * Changes part of the query; anything but a page change goes back to page 1. The native
    * history API updates the address without asking the server to render the page again.
    */
-  const setQuery = useCallback(
-    (patch: Partial<SubmissionsQuery>, options: { replace?: boolean } = {}) => {
+  const setQuery = useCallback<SetListQuery>(
+    (patch, options = {}) => {
       const next = { ...query, ...patch, page: patch.page ?? 1 };
       const search = queryToSearchParams(next).toString();
       setChosen({ query: next, from: raw });
