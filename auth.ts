@@ -5,6 +5,7 @@ import type {} from "next-auth/jwt";
 import Credentials from "next-auth/providers/credentials";
 import Nodemailer from "next-auth/providers/nodemailer";
 import { db, schema } from "@/db";
+import { bumpSessionVersion, sessionVersionOf } from "@/db/queries/users";
 import { verifyPassword } from "@/server/auth/password";
 import { env } from "@/lib/env";
 import { sendMail, simpleHtml } from "@/server/mail";
@@ -19,8 +20,13 @@ declare module "next-auth" {
 declare module "next-auth/jwt" {
   interface JWT {
     uid?: string;
+    /** The account's session version when the token was issued; see `sessionVersion` in db/schema.ts. */
+    sv?: number;
   }
 }
+
+/** How long a session lasts without use; every request within it extends it by as much. */
+export const SESSION_IDLE_SECONDS = 12 * 60 * 60;
 
 export const { handlers, auth, signIn, signOut } = NextAuth({
   adapter: DrizzleAdapter(db, {
@@ -30,7 +36,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
     verificationTokensTable: schema.verificationTokens,
   }),
   // Credentials sign-in only works with JWT sessions; the adapter still stores users and link tokens.
-  session: { strategy: "jwt" },
+  session: { strategy: "jwt", maxAge: SESSION_IDLE_SECONDS },
   secret: env().AUTH_SECRET,
   trustHost: true,
   pages: {
@@ -74,9 +80,25 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
       },
     }),
   ],
+  events: {
+    // Signing out ends this token and every other one the person holds.
+    async signOut(message) {
+      const uid = "token" in message ? message.token?.uid : undefined;
+      if (uid) await bumpSessionVersion(uid);
+    },
+  },
   callbacks: {
-    jwt({ token, user }) {
-      if (user?.id) token.uid = user.id;
+    async jwt({ token, user }) {
+      if (user?.id) {
+        token.uid = user.id;
+        token.sv = (await sessionVersionOf(user.id)) ?? 0;
+        return token;
+      }
+      // Every later use re-reads the version: a sign-out, a password change or a role removal
+      // elsewhere has bumped it, and the old token is then refused (null clears the cookie).
+      if (!token.uid) return null;
+      const current = await sessionVersionOf(token.uid);
+      if (current === undefined || current !== token.sv) return null;
       return token;
     },
     session({ session, token }) {

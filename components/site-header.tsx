@@ -18,9 +18,14 @@ export async function SiteHeader() {
               <Link href="/studio" className="font-semibold">
                 Your anthologies
               </Link>
-              <span className="hidden text-ink-faint sm:inline" data-testid="signed-in-as">
+              <Link
+                href="/studio/account"
+                className="hidden text-ink-faint sm:inline"
+                data-testid="signed-in-as"
+                title="Your account"
+              >
                 {user.email}
-              </span>
+              </Link>
               <form
                 action={async () => {
                   "use server";

@@ -70,6 +70,11 @@ export const users = mysqlTable("user", {
   image: varchar("image", { length: 255 }),
   /** argon2id hash; null for people who only ever sign in by e-mail link. */
   passwordHash: varchar("password_hash", { length: 255 }),
+  /**
+   * Bumped by sign-out, a password change and the removal of a role; a session token that
+   * carries an older number is no longer honoured.
+   */
+  sessionVersion: int("session_version").notNull().default(0),
   createdAt: datetime("created_at", { mode: "date", fsp: 3 }).$defaultFn(() => new Date()),
 });
 
@@ -187,6 +192,8 @@ export const invitations = mysqlTable(
     expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
     acceptedAt: datetime("accepted_at", { mode: "date" }),
     acceptedBy: userRef("accepted_by"),
+    revokedAt: datetime("revoked_at", { mode: "date" }),
+    revokedBy: userRef("revoked_by"),
     createdAt: createdAt(),
   },
   (t) => [index("invitation_anthology").on(t.anthologyId)],

@@ -60,6 +60,9 @@ export async function listMembers(anthologyId: number) {
     .orderBy(asc(schema.memberships.role), asc(schema.users.name));
 }
 
+/** Static pages under /studio whose names an anthology's slug must not take. */
+const STUDIO_SEGMENTS = new Set(["new", "account"]);
+
 /** Creates an anthology with a free slug and makes its creator the lead editor, in one transaction. */
 export async function createAnthology(
   userId: string,
@@ -74,7 +77,7 @@ export async function createAnthology(
         .from(schema.anthologies)
         .where(eq(schema.anthologies.slug, slug))
         .limit(1);
-      if (!taken) break;
+      if (!taken && !STUDIO_SEGMENTS.has(slug)) break;
       slug = `${wantedSlug.slice(0, 55)}-${n}`;
     }
     const [inserted] = await tx

@@ -35,3 +35,10 @@ export const signInSchema = z.object({
 });
 
 export const emailLinkSchema = z.object({ email: emailSchema });
+
+/** Changing (or, for link-only accounts, setting) the password; the current one is checked on the server. */
+export const changePasswordSchema = z.object({
+  currentPassword: z.string().max(200, "Use at most 200 characters").optional(),
+  newPassword: newPasswordSchema,
+});
+export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
