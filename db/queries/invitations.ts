@@ -1,15 +1,19 @@
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
-import { and, eq } from "drizzle-orm";
+import { and, desc, eq, gt, isNull } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { Role } from "@/lib/domain";
 import { ROLE_LABELS } from "@/lib/domain";
+import {
+  acceptanceCheck,
+  INVITATION_DAYS,
+  invitationState,
+  type InvitationState,
+} from "@/lib/invitations";
 import { env } from "@/lib/env";
 import { simpleHtml } from "@/server/mail";
 import { sendLoggedMail } from "./mail-log";
 import type { Anthology } from "./anthologies";
-
-const INVITATION_DAYS = 14;
 
 const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
@@ -50,7 +54,7 @@ export async function inviteToAnthology(
 
 export type InvitationLookup =
   | { state: "valid"; invitation: typeof schema.invitations.$inferSelect; anthology: Anthology }
-  | { state: "unknown" | "used" | "expired" };
+  | { state: "unknown" | Exclude<InvitationState, "valid"> };
 
 export async function findInvitation(token: string): Promise<InvitationLookup> {
   const [row] = await db
@@ -60,22 +64,38 @@ export async function findInvitation(token: string): Promise<InvitationLookup> {
     .where(eq(schema.invitations.tokenHash, hashToken(token)))
     .limit(1);
   if (!row) return { state: "unknown" };
-  if (row.invitation.acceptedAt) return { state: "used" };
-  if (row.invitation.expiresAt.getTime() < Date.now()) return { state: "expired" };
-  return { state: "valid", ...row };
+  const state = invitationState(row.invitation, new Date());
+  return state === "valid" ? { state, ...row } : { state };
 }
 
-/** Accepts an invitation for the signed-in person. Existing members keep their role. */
-export async function acceptInvitation(token: string, userId: string) {
+export type AcceptOutcome =
+  | { ok: true; anthologyId: number; keptRole: Role | null }
+  | { ok: false; reason: "unknown" | "other-address" | "unconfirmed" | InvitationState };
+
+/**
+ * Accepts an invitation for the signed-in person: only an account whose confirmed address is the
+ * invited one, once, while the invitation is neither expired nor revoked. Existing members keep
+ * their role.
+ */
+export async function acceptInvitation(token: string, userId: string): Promise<AcceptOutcome> {
   return db.transaction(async (tx) => {
     const [invitation] = await tx
       .select()
       .from(schema.invitations)
       .where(eq(schema.invitations.tokenHash, hashToken(token)))
       .for("update");
-    if (!invitation || invitation.acceptedAt || invitation.expiresAt.getTime() < Date.now()) {
-      return { ok: false as const };
-    }
+    if (!invitation) return { ok: false, reason: "unknown" };
+    const state = invitationState(invitation, new Date());
+    if (state !== "valid") return { ok: false, reason: state };
+    const [account] = await tx
+      .select({ email: schema.users.email, emailVerified: schema.users.emailVerified })
+      .from(schema.users)
+      .where(eq(schema.users.id, userId));
+    const check = acceptanceCheck(
+      invitation.email,
+      account ?? { email: null, emailVerified: null },
+    );
+    if (check !== "ok") return { ok: false, reason: check };
     const [existing] = await tx
       .select()
       .from(schema.memberships)
@@ -94,10 +114,52 @@ export async function acceptInvitation(token: string, userId: string) {
       .update(schema.invitations)
       .set({ acceptedAt: new Date(), acceptedBy: userId })
       .where(eq(schema.invitations.id, invitation.id));
-    return {
-      ok: true as const,
-      anthologyId: invitation.anthologyId,
-      keptRole: existing?.role ?? null,
-    };
+    return { ok: true, anthologyId: invitation.anthologyId, keptRole: existing?.role ?? null };
   });
+}
+
+/** Invitations still waiting for an answer (not accepted, revoked or expired), newest first. */
+export async function listPendingInvitations(anthologyId: number) {
+  const i = schema.invitations;
+  return db
+    .select({
+      id: i.id,
+      email: i.email,
+      role: i.role,
+      expiresAt: i.expiresAt,
+      createdAt: i.createdAt,
+      invitedBy: schema.users.name,
+    })
+    .from(i)
+    .leftJoin(schema.users, eq(schema.users.id, i.invitedBy))
+    .where(
+      and(
+        eq(i.anthologyId, anthologyId),
+        isNull(i.acceptedAt),
+        isNull(i.revokedAt),
+        gt(i.expiresAt, new Date()),
+      ),
+    )
+    .orderBy(desc(i.createdAt));
+}
+
+/** Revokes a pending invitation of this anthology; false when there was none to revoke. */
+export async function revokeInvitation(
+  anthologyId: number,
+  invitationId: number,
+  byUserId: string,
+): Promise<boolean> {
+  const i = schema.invitations;
+  const [result] = await db
+    .update(i)
+    .set({ revokedAt: new Date(), revokedBy: byUserId })
+    .where(
+      and(
+        eq(i.id, invitationId),
+        eq(i.anthologyId, anthologyId),
+        isNull(i.acceptedAt),
+        isNull(i.revokedAt),
+      ),
+    );
+  return result.affectedRows > 0;
 }

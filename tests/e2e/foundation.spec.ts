@@ -165,6 +165,13 @@ test("an editor invites a person by e-mail; they join with that role", async ({
   await guest.getByRole("button", { name: "Create account" }).click();
   await expect(guest).toHaveURL(/\/studio$/);
   await guest.goto(link!);
+  // A password account has only typed the address in: a sign-in link sent to it confirms it.
+  await expect(guest.getByRole("button", { name: "Accept the invitation" })).toHaveCount(0);
+  await guest.getByRole("button", { name: /E-mail a sign-in link/ }).click();
+  await expect(guest.getByTestId("check-email")).toBeVisible();
+  const confirm = await waitForMessage({ to: email, subject: /sign-in link/ });
+  await guest.goto(extractLinks(confirm.text).find((l) => l.includes("/callback/nodemailer"))!);
+  await expect(guest).toHaveURL(/\/invite\//);
   await guest.getByRole("button", { name: "Accept the invitation" }).click();
   await expect(guest.getByTestId("role-group-editor")).toContainText("Low Tide Almanac");
   await guest.goto(link!);
