@@ -21,6 +21,8 @@ const envSchema = z.object({
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().min(3).default("Quireline <studio@quireline.test>"),
   OUTBOX_URL: z.url("must be the SMTP sink's HTTP address, e.g. http://127.0.0.1:4526").optional(),
+  /** The address the web server listens on (the launcher's `next start -H`); /dev/outbox needs loopback. */
+  APP_BIND_HOST: z.string().min(1).optional(),
   UPLOADTHING_TOKEN: z.string().optional(),
   UPLOADTHING_INGEST_URL: z.url().optional(),
   /** Only UTApi (deleting files, the demo seed) talks to it. */

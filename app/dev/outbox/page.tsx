@@ -1,5 +1,8 @@
+import { headers } from "next/headers";
 import { notFound } from "next/navigation";
 import { env } from "@/lib/env";
+import { mailFor, outboxServed } from "@/lib/outbox";
+import { requireUser } from "@/server/auth/guard";
 
 export const dynamic = "force-dynamic";
 export const metadata = { title: "Outbox (local mail sink)" };
@@ -13,15 +16,26 @@ type SinkMessage = {
   date: string;
 };
 
-/** Every message the local SMTP sink caught. Exists only while the sink is configured (OUTBOX_URL). */
+/**
+ * The signed-in person's own mail, as the local SMTP sink caught it. Exists only while the sink is
+ * configured (OUTBOX_URL) and the app listens on, and is reached by, loopback (lib/outbox.ts).
+ */
 export default async function OutboxPage() {
   const outbox = env().OUTBOX_URL;
-  if (!outbox) notFound();
+  const served = outboxServed({
+    outboxUrl: outbox,
+    bindHost: env().APP_BIND_HOST,
+    requestHost: (await headers()).get("host"),
+  });
+  if (!outbox || !served) notFound();
+  const user = await requireUser("/dev/outbox");
+  if (!user.email) notFound();
   let messages: SinkMessage[] = [];
   let problem: string | undefined;
   try {
-    const response = await fetch(`${outbox.replace(/\/$/, "")}/messages`, { cache: "no-store" });
-    messages = ((await response.json()) as SinkMessage[]).reverse();
+    const url = `${outbox.replace(/\/$/, "")}/messages?to=${encodeURIComponent(user.email)}`;
+    const response = await fetch(url, { cache: "no-store" });
+    messages = mailFor((await response.json()) as SinkMessage[], user.email).reverse();
   } catch {
     problem = `The mail sink at ${outbox} is not answering.`;
   }
@@ -30,8 +44,9 @@ export default async function OutboxPage() {
       <div>
         <h1 className="text-3xl font-extrabold">Outbox</h1>
         <p className="text-ink-soft">
-          Mail Quireline sent while running locally, caught by the SMTP sink instead of being
-          delivered. Newest first.
+          Mail Quireline sent to <span className="font-mono">{user.email}</span> while running
+          locally, caught by the SMTP sink instead of being delivered. Newest first. Only your own
+          mail is shown here, and only on this machine.
         </p>
       </div>
       {problem ? <p className="text-persimmon-dark">{problem}</p> : null}
