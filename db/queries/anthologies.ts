@@ -1,7 +1,9 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { db, schema } from "@/db";
+import { roleChangeRefusal, type RoleChangeRefusal } from "@/lib/auth/policy";
 import type { Role } from "@/lib/domain";
+import { bumpSessionVersion } from "./users";
 
 export type Anthology = typeof schema.anthologies.$inferSelect;
 
@@ -58,6 +60,35 @@ export async function listMembers(anthologyId: number) {
     .innerJoin(schema.users, eq(schema.users.id, schema.memberships.userId))
     .where(eq(schema.memberships.anthologyId, anthologyId))
     .orderBy(asc(schema.memberships.role), asc(schema.users.name));
+}
+
+/**
+ * Changes a member's role, or removes them (null), under a lock on the anthology's memberships so
+ * two leads cannot demote each other at once. A removed person's sessions end.
+ */
+export async function changeMemberRole(
+  anthologyId: number,
+  userId: string,
+  newRole: Role | null,
+): Promise<{ ok: true } | { ok: false; reason: RoleChangeRefusal }> {
+  const outcome = await db.transaction(async (tx) => {
+    const members = await tx
+      .select({ userId: schema.memberships.userId, role: schema.memberships.role })
+      .from(schema.memberships)
+      .where(eq(schema.memberships.anthologyId, anthologyId))
+      .for("update");
+    const refusal = roleChangeRefusal(members, userId, newRole);
+    if (refusal) return { ok: false as const, reason: refusal };
+    const mine = and(
+      eq(schema.memberships.anthologyId, anthologyId),
+      eq(schema.memberships.userId, userId),
+    );
+    if (newRole === null) await tx.delete(schema.memberships).where(mine);
+    else await tx.update(schema.memberships).set({ role: newRole }).where(mine);
+    return { ok: true as const };
+  });
+  if (outcome.ok && newRole === null) await bumpSessionVersion(userId);
+  return outcome;
 }
 
 /** Static pages under /studio whose names an anthology's slug must not take. */

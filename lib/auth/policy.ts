@@ -47,3 +47,29 @@ export function maySeePiece(role: Role | null | undefined, isOwner: boolean): bo
   if (can(role, "pieces:review")) return true;
   return isOwner && can(role, "pieces:view-own");
 }
+
+/** Why a change to someone's role can be refused, in plain words. */
+export const ROLE_CHANGE_REFUSALS = {
+  "not-member": "That person is not a member of this anthology.",
+  "last-lead":
+    "An anthology needs a lead editor: make someone else lead before changing or removing this one.",
+} as const;
+export type RoleChangeRefusal = keyof typeof ROLE_CHANGE_REFUSALS;
+
+/**
+ * Why a change to someone's role (null: removing them) is refused, or null when it may go ahead.
+ * An anthology always keeps at least one lead editor.
+ */
+export function roleChangeRefusal(
+  members: readonly { userId: string; role: Role }[],
+  userId: string,
+  newRole: Role | null,
+): RoleChangeRefusal | null {
+  const member = members.find((m) => m.userId === userId);
+  if (!member) return "not-member";
+  if (member.role === "lead" && newRole !== "lead") {
+    const leads = members.filter((m) => m.role === "lead").length;
+    if (leads <= 1) return "last-lead";
+  }
+  return null;
+}

@@ -20,6 +20,7 @@ vi.mock("@/auth", () => ({ auth: async () => (session.user ? { user: session.use
 
 const notesRoute = await import("@/app/api/pieces/[id]/notes/route");
 const { acceptInvitation } = await import("@/db/queries/invitations");
+const { changeMemberRole } = await import("@/db/queries/anthologies");
 const { MAX_JSON_BYTES } = await import("@/server/api");
 const { pool } = await import("@/db");
 
@@ -196,5 +197,30 @@ describe("invitations are bound to the invited address", () => {
       reason: "revoked",
     });
     expect(await roleOf(people.outsider.id)).toBeNull();
+  });
+});
+
+describe("removing a role", () => {
+  async function sessionVersion(userId: string) {
+    const [rows] = await conn.query<mysql.RowDataPacket[]>(
+      "SELECT session_version AS v FROM user WHERE id = ?",
+      [userId],
+    );
+    return Number(rows[0]!.v);
+  }
+
+  it("keeps the last lead, and ends the sessions of a person who is removed", async () => {
+    expect(await changeMemberRole(book.id, people.lead.id, "editor")).toEqual({
+      ok: false,
+      reason: "last-lead",
+    });
+    const before = await sessionVersion(people.editor.id);
+    expect(await changeMemberRole(book.id, people.editor.id, null)).toEqual({ ok: true });
+    expect(await sessionVersion(people.editor.id)).toBe(before + 1);
+    const [rows] = await conn.query<mysql.RowDataPacket[]>(
+      "SELECT COUNT(*) AS n FROM membership WHERE anthology_id = ? AND user_id = ?",
+      [book.id, people.editor.id],
+    );
+    expect(Number(rows[0]!.n)).toBe(0);
   });
 });

@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { ACTIONS, can, rolesInvitableBy, type Action } from "@/lib/auth/policy";
+import {
+  ACTIONS,
+  can,
+  maySeePiece,
+  roleChangeRefusal,
+  rolesInvitableBy,
+  type Action,
+} from "@/lib/auth/policy";
 import { ROLES, type Role } from "@/lib/domain";
 
 // The product's role table: L = lead editor, E = editor, F = finisher, C = contributor.
@@ -55,5 +62,40 @@ describe("role rules", () => {
     expect(rolesInvitableBy("editor")).toEqual(["editor", "finisher", "contributor"]);
     expect(rolesInvitableBy("finisher")).toEqual([]);
     expect(rolesInvitableBy("contributor")).toEqual([]);
+  });
+});
+
+describe("who may see a piece", () => {
+  it("is the anthology's lead and editors, and the piece's own contributor", () => {
+    expect(maySeePiece("lead", false)).toBe(true);
+    expect(maySeePiece("editor", false)).toBe(true);
+    expect(maySeePiece("contributor", true)).toBe(true);
+  });
+  it("is never another contributor, the finisher or an outsider", () => {
+    expect(maySeePiece("contributor", false)).toBe(false);
+    expect(maySeePiece("finisher", false)).toBe(false);
+    expect(maySeePiece(null, true)).toBe(false);
+  });
+});
+
+describe("changing roles", () => {
+  const members = [
+    { userId: "wren", role: "lead" as const },
+    { userId: "piet", role: "editor" as const },
+    { userId: "ada", role: "contributor" as const },
+  ];
+  it("keeps the last lead: no demotion, no removal", () => {
+    expect(roleChangeRefusal(members, "wren", "editor")).toBe("last-lead");
+    expect(roleChangeRefusal(members, "wren", null)).toBe("last-lead");
+    expect(roleChangeRefusal(members, "wren", "lead")).toBeNull();
+  });
+  it("lets a lead step down once there is another lead", () => {
+    const twoLeads = [...members, { userId: "odo", role: "lead" as const }];
+    expect(roleChangeRefusal(twoLeads, "wren", null)).toBeNull();
+  });
+  it("changes and removes other members, and refuses people who are not members", () => {
+    expect(roleChangeRefusal(members, "piet", "finisher")).toBeNull();
+    expect(roleChangeRefusal(members, "ada", null)).toBeNull();
+    expect(roleChangeRefusal(members, "nobody", "editor")).toBe("not-member");
   });
 });
