@@ -1,177 +1,97 @@
-// Streaming multipart/form-data parser: writes the "file" part straight to disk.
+// Receiving the PUT's multipart/form-data body with busboy: the "file" part streams straight
+// to disk while its bytes are counted and hashed (md5, the SDK's fileHash).
 
 import { createHash } from "node:crypto";
-import { createWriteStream, rmSync } from "node:fs";
+import { createWriteStream } from "node:fs";
+import { Transform } from "node:stream";
+import { pipeline } from "node:stream/promises";
+
+import busboy from "busboy";
 
 import { BadRequestError } from "./http.mjs";
 
-function boundaryOf(contentType) {
-  const m = /boundary=(?:"([^"]+)"|([^;]+))/i.exec(contentType ?? "");
-  return m ? (m[1] ?? m[2]).trim() : null;
-}
+const NOT_MULTIPART = "expected a multipart/form-data body";
 
-function parsePartHeaders(text) {
-  const headers = {};
-  for (const line of text.split("\r\n")) {
-    const i = line.indexOf(":");
-    if (i > 0) headers[line.slice(0, i).trim().toLowerCase()] = line.slice(i + 1).trim();
-  }
-  const cd = headers["content-disposition"] ?? "";
-  const name = /\bname="([^"]*)"/i.exec(cd)?.[1] ?? /\bname=([^;]+)/i.exec(cd)?.[1] ?? null;
-  const filenameStar = /\bfilename\*=(?:UTF-8'')?([^;]+)/i.exec(cd)?.[1];
-  let filename = /\bfilename="([^"]*)"/i.exec(cd)?.[1] ?? null;
-  if (filenameStar) {
-    try {
-      filename = decodeURIComponent(filenameStar);
-    } catch {
-      /* keep the plain filename */
-    }
-  }
-  return { name, filename, contentType: headers["content-type"] ?? null };
+/** busboy's parse errors, answered (400) in the fake's own words. */
+const PARSE_ERRORS = {
+  "Unexpected end of form": "multipart body ended before the closing boundary",
+  "Unexpected end of file": "multipart body ended before the closing boundary",
+  "Malformed part header": "malformed multipart part header (or headers over 16 KiB)",
+};
+
+/**
+ * Counts and hashes every byte of the file part, passing on only the first `maxBytes`: a body
+ * larger than the declared size is still read to its end, so the answer can say how large it was.
+ */
+function meter(maxBytes) {
+  const hash = createHash("md5");
+  const counted = { size: 0, tooLarge: false, md5: () => hash.digest("hex") };
+  const stream = new Transform({
+    transform(chunk, _encoding, callback) {
+      counted.size += chunk.length;
+      hash.update(chunk);
+      if (counted.size > maxBytes) {
+        counted.tooLarge = true;
+        const room = maxBytes - (counted.size - chunk.length);
+        return callback(null, room > 0 ? chunk.subarray(0, room) : undefined);
+      }
+      callback(null, chunk);
+    },
+  });
+  return { stream, counted };
 }
 
 /**
- * Read a multipart body from `req`, streaming the part named `field` into `destPath`.
+ * Read a multipart body from `req`, streaming the first file part named `field` into `destPath`.
  * Stops writing (but keeps counting) once `maxBytes` is exceeded.
- * @returns {Promise<{size: number, md5: string, filename: string|null, contentType: string|null} | null>}
+ * @returns {Promise<{size: number, md5: string, filename: string|null, contentType: string|null, tooLarge: boolean} | null>}
+ *   null when the body has no file part named `field`
  */
 export async function receiveMultipartFile(req, { field, destPath, maxBytes }) {
-  const boundary = boundaryOf(req.headers["content-type"]);
-  if (!boundary || !/^multipart\/form-data/i.test(req.headers["content-type"] ?? "")) {
-    throw new BadRequestError("expected a multipart/form-data body");
+  if (!/^multipart\/form-data/i.test(req.headers["content-type"] ?? "")) {
+    throw new BadRequestError(NOT_MULTIPART);
   }
-  const delim = Buffer.from(`\r\n--${boundary}`);
-  const headerEnd = Buffer.from("\r\n\r\n");
-  // Prefix CRLF so the first delimiter matches like every later one.
-  let buf = Buffer.from("\r\n");
-  let state = "preamble"; // preamble | afterDelim | headers | body | done
-  let part = null; // {isFile, out?, hash?, size}
-  let result = null;
-  let out = null;
-  let outError = null;
+  let parser;
+  try {
+    // utf8: browsers send file names as raw UTF-8 in the part headers.
+    parser = busboy({ headers: req.headers, defParamCharset: "utf8" });
+  } catch {
+    throw new BadRequestError(NOT_MULTIPART);
+  }
 
-  const openOut = () => {
-    outError = null;
-    out = createWriteStream(destPath, { highWaterMark: 4 * 1024 * 1024 });
-    out.on("error", (err) => {
-      outError = err;
-    });
-  };
-
-  const waitFor = (event) =>
-    new Promise((res, rej) => {
-      if (outError) return rej(outError);
-      const onEvent = () => {
-        out.off("error", onError);
-        res();
-      };
-      const onError = (err) => {
-        out.off(event, onEvent);
-        rej(err);
-      };
-      out.once(event, onEvent);
-      out.once("error", onError);
-    });
-
-  const writeOut = async (chunk) => {
-    if (!part || !part.isFile || chunk.length === 0) return;
-    part.size += chunk.length;
-    part.hash.update(chunk);
-    if (part.size > maxBytes) {
-      part.tooLarge = true;
+  /** @type {Promise<NonNullable<Awaited<ReturnType<typeof receiveMultipartFile>>>> | null} */
+  let received = null;
+  parser.on("file", (name, file, info) => {
+    if (name !== field || received) {
+      file.resume();
       return;
     }
-    if (outError) throw outError;
-    if (!out.write(chunk)) await waitFor("drain");
-  };
+    const { stream, counted } = meter(maxBytes);
+    const out = createWriteStream(destPath, { highWaterMark: 4 * 1024 * 1024 });
+    received = pipeline(file, stream, out).then(() => ({
+      size: counted.size,
+      md5: counted.md5(),
+      filename: info.filename ?? null,
+      contentType: info.mimeType ?? null,
+      tooLarge: counted.tooLarge,
+    }));
+    // Awaited below; a parse error rejects it too, before anyone awaits it.
+    received.catch(() => {});
+  });
 
-  const finishPart = async () => {
-    if (part && part.isFile && !result) {
-      const finished = waitFor("finish");
-      out.end();
-      await finished;
-      result = {
-        size: part.size,
-        md5: part.hash.digest("hex"),
-        filename: part.filename,
-        contentType: part.contentType,
-        tooLarge: Boolean(part.tooLarge),
-      };
-      out = null;
-    }
-    part = null;
-  };
-
+  let parseError = null;
+  parser.once("error", (err) => {
+    parseError = err;
+  });
   try {
-    for await (const chunk of req) {
-      buf = buf.length ? Buffer.concat([buf, chunk]) : chunk;
-      let progressed = true;
-      while (progressed && state !== "done") {
-        progressed = false;
-        if (state === "preamble") {
-          const i = buf.indexOf(delim);
-          if (i >= 0) {
-            buf = buf.subarray(i + delim.length);
-            state = "afterDelim";
-            progressed = true;
-          } else if (buf.length > delim.length) {
-            buf = buf.subarray(buf.length - delim.length);
-          }
-        } else if (state === "afterDelim") {
-          if (buf.length < 2) break;
-          if (buf[0] === 0x2d && buf[1] === 0x2d) {
-            state = "done";
-            break;
-          }
-          const eol = buf.indexOf("\r\n");
-          if (eol < 0) {
-            if (buf.length > 1024) throw new BadRequestError("malformed multipart delimiter line");
-            break;
-          }
-          buf = buf.subarray(eol + 2);
-          state = "headers";
-          progressed = true;
-        } else if (state === "headers") {
-          const i = buf.indexOf(headerEnd);
-          if (i < 0) {
-            if (buf.length > 16 * 1024)
-              throw new BadRequestError("multipart part headers too large");
-            break;
-          }
-          const info = parsePartHeaders(buf.subarray(0, i).toString("utf8"));
-          buf = buf.subarray(i + headerEnd.length);
-          const isFile = info.name === field && !result;
-          part = { ...info, isFile, size: 0, hash: isFile ? createHash("md5") : null };
-          if (isFile) openOut();
-          state = "body";
-          progressed = true;
-        } else if (state === "body") {
-          const i = buf.indexOf(delim);
-          if (i >= 0) {
-            await writeOut(buf.subarray(0, i));
-            buf = buf.subarray(i + delim.length);
-            await finishPart();
-            state = "afterDelim";
-            progressed = true;
-          } else {
-            const safe = buf.length - (delim.length - 1);
-            if (safe > 0) {
-              await writeOut(buf.subarray(0, safe));
-              buf = Buffer.from(buf.subarray(safe));
-            }
-          }
-        }
-      }
-    }
-  } finally {
-    if (out) {
-      out.destroy();
-      out = null;
-    }
+    await pipeline(req, parser);
+  } catch (err) {
+    // Let the file's own pipeline settle, so no write is still open when the caller removes it.
+    await received?.catch(() => {});
+    // busboy's messages about the body itself; anything else (a client that went away) is thrown as is.
+    if (parseError && Object.hasOwn(PARSE_ERRORS, parseError.message))
+      throw new BadRequestError(PARSE_ERRORS[parseError.message]);
+    throw err;
   }
-  if (state !== "done") {
-    rmSync(destPath, { force: true });
-    throw new BadRequestError("multipart body ended before the closing boundary");
-  }
-  return result;
+  return received ? await received : null;
 }

@@ -1,7 +1,7 @@
 // The local stand-ins (storage-fake/) driven by the real clients: the uploadthing SDK
 // (UTApi and a route handler in both callback modes) and nodemailer. No database needed.
 import { createHash, createHmac, randomBytes } from "node:crypto";
-import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import { createServer, get as httpGet, type IncomingMessage, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { tmpdir } from "node:os";
@@ -656,6 +656,100 @@ describe("presigned URL expiry", () => {
       body: multipart(Buffer.from("late"), "late.txt", "text/plain"),
     });
     expect(res3.status).toBe(403);
+  });
+});
+
+describe("multipart bodies on the ingest PUT", () => {
+  const artwork = randomBytes(3000);
+  let nextKey = 0;
+
+  /** PUT `body` to a freshly signed ingest URL declaring `declaredSize` bytes (no slug: no hooks). */
+  async function putRaw(contentType: string, body: Buffer, declaredSize = artwork.length) {
+    const key = `multipartcase${String(++nextKey).padStart(4, "0")}`;
+    const params = {
+      "x-ut-identifier": APP_ID,
+      "x-ut-file-name": "plate-9.png",
+      "x-ut-file-size": String(declaredSize),
+      "x-ut-file-type": "image/png",
+      "x-ut-content-disposition": "inline",
+    };
+    const url = signIngestUrl(uploads.baseUrl, key, params, Date.now() + 60_000);
+    const res = await fetch(url, {
+      method: "PUT",
+      headers: { "content-type": contentType },
+      body: new Uint8Array(body),
+    });
+    return { key, res, json: (await res.json()) as { fileHash?: string; error?: string } };
+  }
+
+  /** A multipart body built by hand, CRLF line ends as RFC 7578 requires. */
+  function multipartBody(boundary: string, parts: { headers: string[]; data: Buffer }[]) {
+    const chunks: Buffer[] = [];
+    for (const part of parts) {
+      chunks.push(Buffer.from(`--${boundary}\r\n${part.headers.join("\r\n")}\r\n\r\n`), part.data);
+      chunks.push(Buffer.from("\r\n"));
+    }
+    chunks.push(Buffer.from(`--${boundary}--\r\n`));
+    return Buffer.concat(chunks);
+  }
+
+  const filePart = {
+    headers: [
+      'Content-Disposition: form-data; name="file"; filename="plate-9.png"',
+      "Content-Type: image/png",
+    ],
+    data: artwork,
+  };
+
+  it("finds the boundary parameter after a quoted parameter that mentions boundary=", async () => {
+    // RFC 2045 section 5.1: a parameter value may be a quoted string, which may hold "boundary=".
+    const { key, res, json } = await putRaw(
+      'multipart/form-data; comment="boundary=not-this-one"; boundary=plate-9-sep',
+      multipartBody("plate-9-sep", [filePart]),
+    );
+    expect(res.status).toBe(200);
+    expect(json.fileHash).toBe(md5(artwork));
+    const served = await fetchBytes(`${uploads.baseUrl}/f/${key}`);
+    expect(served.bytes.equals(artwork)).toBe(true);
+  });
+
+  it("stores the file part, not a plain text field that shares its name", async () => {
+    // RFC 7578 section 4.2: the part holding a file's content carries a filename parameter.
+    const textField = {
+      headers: ['Content-Disposition: form-data; name="file"'],
+      data: Buffer.from("a caption, not the artwork"),
+    };
+    const { key, res, json } = await putRaw(
+      "multipart/form-data; boundary=plate-9-sep",
+      multipartBody("plate-9-sep", [textField, filePart]),
+    );
+    expect(res.status).toBe(200);
+    expect(json.fileHash).toBe(md5(artwork));
+    expect((await fetchBytes(`${uploads.baseUrl}/f/${key}`)).bytes.equals(artwork)).toBe(true);
+  });
+
+  it("refuses a file larger than its declared size with 400, keeping nothing", async () => {
+    const { key, res, json } = await putRaw(
+      "multipart/form-data; boundary=plate-9-sep",
+      multipartBody("plate-9-sep", [filePart]),
+      1000,
+    );
+    expect(res.status).toBe(400);
+    expect(json.error).toBe(`File size mismatch: expected 1000 bytes, received ${artwork.length}`);
+    expect((await fetch(`${uploads.baseUrl}/f/${key}`)).status).toBe(404);
+    expect(readdirSync(join(uploads.dataDir, "tmp"))).toEqual([]);
+    expect(existsSync(join(uploads.dataDir, "files", key))).toBe(false);
+  });
+
+  it("answers 400 for a body cut off before its closing boundary", async () => {
+    const whole = multipartBody("plate-9-sep", [filePart]);
+    const { res, json } = await putRaw(
+      "multipart/form-data; boundary=plate-9-sep",
+      whole.subarray(0, whole.length - "\r\n--plate-9-sep--\r\n".length),
+    );
+    expect(res.status).toBe(400);
+    expect(json.error).toBe("multipart body ended before the closing boundary");
+    expect(readdirSync(join(uploads.dataDir, "tmp"))).toEqual([]);
   });
 });
 
