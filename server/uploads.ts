@@ -7,6 +7,7 @@ import type { NextRequest } from "next/server";
 import { createRouteHandler, createUploadthing } from "uploadthing/next";
 import { UploadThingError, UTApi, UTFile, type FileRouter } from "uploadthing/server";
 import { env } from "@/lib/env";
+import { apiRoute } from "@/server/api";
 
 export { createUploadthing, UploadThingError };
 export type { FileRouter };
@@ -46,9 +47,11 @@ function sdkConfig() {
 export function uploadRouteHandlers<R extends FileRouter>(router: R) {
   let handlers: ReturnType<typeof createRouteHandler> | undefined;
   const get = () => (handlers ??= createRouteHandler({ router, config: sdkConfig() }));
+  const uploadPost = apiRoute<undefined>(async (request) => get().POST(request as NextRequest));
   return {
     GET: (request: NextRequest) => get().GET(request),
-    POST: (request: NextRequest) => get().POST(request),
+    // Upload starts change state: through apiRoute, a page of another site may not start one.
+    POST: (request: NextRequest) => uploadPost(request, undefined),
   };
 }
 
