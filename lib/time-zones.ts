@@ -1,8 +1,17 @@
 /**
  * Wall-clock times in an IANA time zone and the UTC instants they name. Pure; runs in the
- * browser and on the server alike (only the built-in Intl API, which carries the tz database).
+ * browser and on the server alike. Conversions go through Temporal (`temporal-polyfill`, which
+ * reads the tz database through the built-in Intl API); zone names and words come from Intl.
  * Calls store UTC instants plus the zone the editor wrote them in, and are shown in that zone.
+ *
+ * One rule at a change of clocks (the zone's own DST rule, as the tz database records it):
+ * - a wall-clock time the clocks skip when they go forward names no instant and is refused
+ *   ("skipped"), as Temporal's `disambiguation: "reject"` would;
+ * - a wall-clock time that happens twice when they go back names the earlier instant (the one
+ *   still on the old offset, summer time at the end of DST), as Temporal's
+ *   `disambiguation: "earlier"` picks, marked `ambiguous`.
  */
+import { Temporal } from "temporal-polyfill";
 
 /** A wall-clock time as a `datetime-local` input gives it: "2025-07-01T12:00" (seconds optional). */
 export const LOCAL_DATE_TIME = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2}))?$/;
@@ -42,49 +51,14 @@ export function timeZonesByRegion(
     }));
 }
 
-const partsFormatters = new Map<string, Intl.DateTimeFormat>();
-
-function partsFormatter(zone: string): Intl.DateTimeFormat {
-  let formatter = partsFormatters.get(zone);
-  if (!formatter) {
-    formatter = new Intl.DateTimeFormat("en-US", {
-      timeZone: zone,
-      hourCycle: "h23",
-      year: "numeric",
-      month: "2-digit",
-      day: "2-digit",
-      hour: "2-digit",
-      minute: "2-digit",
-      second: "2-digit",
-    });
-    partsFormatters.set(zone, formatter);
-  }
-  return formatter;
-}
-
-/** The wall clock in `zone` at an instant, as numbers. */
-function wallClock(instantMs: number, zone: string) {
-  const parts: Record<string, number> = {};
-  for (const part of partsFormatter(zone).formatToParts(new Date(instantMs))) {
-    if (part.type !== "literal") parts[part.type] = Number(part.value);
-  }
-  return {
-    year: parts.year ?? 1970,
-    month: parts.month ?? 1,
-    day: parts.day ?? 1,
-    hour: (parts.hour ?? 0) % 24,
-    minute: parts.minute ?? 0,
-    second: parts.second ?? 0,
-  };
+/** The zone's clock at an instant. */
+function zoned(instant: Date, zone: string): Temporal.ZonedDateTime {
+  return Temporal.Instant.fromEpochMilliseconds(instant.getTime()).toZonedDateTimeISO(zone);
 }
 
 /** How far the zone's wall clock is ahead of UTC at an instant, in minutes (Lisbon in July: 60). */
 export function zoneOffsetMinutes(instant: Date, zone: string): number {
-  const ms = Math.floor(instant.getTime() / 1000) * 1000;
-  const w = wallClock(ms, zone);
-  return Math.round(
-    (Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) - ms) / 60_000,
-  );
+  return Math.round(zoned(instant, zone).offsetNanoseconds / 60e9);
 }
 
 export type ZonedToUtc =
@@ -104,7 +78,7 @@ export function zonedToUtc(local: string, zone: string): ZonedToUtc {
   const match = LOCAL_DATE_TIME.exec(local);
   if (!match) return { ok: false, reason: "bad-format" };
   if (!isValidTimeZone(zone)) return { ok: false, reason: "bad-zone" };
-  const [y, mo, d, h, mi, s] = match.slice(1).map((v) => Number(v ?? 0)) as [
+  const [year, month, day, hour, minute, second] = match.slice(1).map((v) => Number(v ?? 0)) as [
     number,
     number,
     number,
@@ -112,38 +86,30 @@ export function zonedToUtc(local: string, zone: string): ZonedToUtc {
     number,
     number,
   ];
-  const asUtc = Date.UTC(y, mo - 1, d, h, mi, s);
-  const check = new Date(asUtc);
-  if (
-    check.getUTCFullYear() !== y ||
-    check.getUTCMonth() !== mo - 1 ||
-    check.getUTCDate() !== d ||
-    h > 23 ||
-    mi > 59 ||
-    s > 59
-  ) {
+  let wall: Temporal.PlainDateTime;
+  try {
+    wall = Temporal.PlainDateTime.from(
+      { year, month, day, hour, minute, second },
+      { overflow: "reject" },
+    );
+  } catch {
     return { ok: false, reason: "bad-format" };
   }
-  // Zone offsets near the wall time: whichever offsets make the wall time come back unchanged are
-  // the instants it names (none in a gap, two in an overlap).
-  const offsets = new Set(
-    [-1, 0, 1].map((days) => zoneOffsetMinutes(new Date(asUtc + days * 43_200_000), zone)),
-  );
-  const candidates = [...offsets]
-    .map((offset) => asUtc - offset * 60_000)
-    .filter((instant) => {
-      const w = wallClock(instant, zone);
-      return Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) === asUtc;
-    })
-    .sort((a, b) => a - b);
-  const first = candidates[0];
-  if (first === undefined) return { ok: false, reason: "skipped" };
-  return { ok: true, instant: new Date(first), ambiguous: candidates.length > 1 };
+  // In a gap no instant shows this wall time, so even the earlier reading lands on another one;
+  // in an overlap the earlier and later readings are two instants that both show it.
+  const earlier = wall.toZonedDateTime(zone, { disambiguation: "earlier" });
+  if (!earlier.toPlainDateTime().equals(wall)) return { ok: false, reason: "skipped" };
+  const later = wall.toZonedDateTime(zone, { disambiguation: "later" });
+  return {
+    ok: true,
+    instant: new Date(earlier.epochMilliseconds),
+    ambiguous: later.epochMilliseconds !== earlier.epochMilliseconds,
+  };
 }
 
 /** The wall-clock time of an instant in `zone`, in the `datetime-local` form "2025-07-01T12:00". */
 export function utcToZonedLocal(instant: Date, zone: string): string {
-  const w = wallClock(instant.getTime(), zone);
+  const w = zoned(instant, zone);
   const pad = (n: number, width = 2) => String(n).padStart(width, "0");
   return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}T${pad(w.hour)}:${pad(w.minute)}`;
 }

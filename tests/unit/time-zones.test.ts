@@ -72,6 +72,64 @@ describe("America/Halifax", () => {
   });
 });
 
+// America/New_York keeps UTC−5 (EST) and UTC−4 (EDT) in summer: DST starts at 02:00 local on the
+// second Sunday of March and ends at 02:00 local on the first Sunday of November (US Energy Policy
+// Act of 2005, §110, amending 15 U.S.C. 260a; IANA tz database, file "northamerica",
+// Rule US 2007 max: "Mar Sun>=8 2:00" and "Nov Sun>=1 2:00"). In 2026 those are 8 March and 1 November.
+describe("America/New_York", () => {
+  it("refuses the spring-forward gap 02:00–02:59 on 8 March 2026 and keeps the minutes around it", () => {
+    for (const local of ["2026-03-08T02:00", "2026-03-08T02:30", "2026-03-08T02:59"])
+      expect(zonedToUtc(local, "America/New_York")).toEqual({ ok: false, reason: "skipped" });
+    expect(instantOf("2026-03-08T01:59", "America/New_York")).toEqual({
+      ok: true,
+      instant: new Date("2026-03-08T06:59:00.000Z"),
+      ambiguous: false,
+    });
+    expect(instantOf("2026-03-08T03:00", "America/New_York")).toEqual({
+      ok: true,
+      instant: new Date("2026-03-08T07:00:00.000Z"),
+      ambiguous: false,
+    });
+  });
+
+  it("reads the fall-back overlap 01:00–01:59 on 1 November 2026 as the earlier, EDT, instant", () => {
+    const first = instantOf("2026-11-01T01:30", "America/New_York");
+    expect(first.ambiguous).toBe(true);
+    expect(first.instant.toISOString()).toBe("2026-11-01T05:30:00.000Z");
+    // The same wall time an hour later (EST) shows the same clock: that is the overlap.
+    expect(utcToZonedLocal(new Date("2026-11-01T06:30:00Z"), "America/New_York")).toBe(
+      "2026-11-01T01:30",
+    );
+    expect(instantOf("2026-11-01T00:59", "America/New_York")).toEqual({
+      ok: true,
+      instant: new Date("2026-11-01T04:59:00.000Z"),
+      ambiguous: false,
+    });
+    expect(instantOf("2026-11-01T02:00", "America/New_York")).toEqual({
+      ok: true,
+      instant: new Date("2026-11-01T07:00:00.000Z"),
+      ambiguous: false,
+    });
+  });
+});
+
+// Pacific/Apia kept UTC+13 and UTC+14 in summer until 2021; summer time ended at 04:00 local on
+// the first Sunday of April, 5 April 2020, when clocks went back to 03:00 (IANA tz database, file
+// "australasia", Rule WS "Apr Sun>=1 4:00" and Zone Pacific/Apia "13:00 WS +13/+14").
+// A zone more than 12 hours ahead of UTC at a change of clocks.
+describe("Pacific/Apia", () => {
+  it("finds 02:00 on 5 April 2020 at UTC+14 and reads 03:30, which happens twice, as the first", () => {
+    expect(instantOf("2020-04-05T02:00", "Pacific/Apia")).toEqual({
+      ok: true,
+      instant: new Date("2020-04-04T12:00:00.000Z"),
+      ambiguous: false,
+    });
+    const repeated = instantOf("2020-04-05T03:30", "Pacific/Apia");
+    expect(repeated.ambiguous).toBe(true);
+    expect(repeated.instant.toISOString()).toBe("2020-04-04T13:30:00.000Z");
+  });
+});
+
 describe("zone names and formats", () => {
   it("knows real zones and refuses made-up ones", () => {
     expect(isValidTimeZone("Europe/Lisbon")).toBe(true);
@@ -122,6 +180,46 @@ describe("zone names and formats", () => {
         },
       ),
       { numRuns: 300 },
+    );
+  });
+
+  it("reads any wall-clock minute on a change-of-clocks night as an instant showing it, or refuses it only where clocks jump", () => {
+    const zones = ["Europe/Lisbon", "America/New_York", "Australia/Lord_Howe", "Pacific/Apia"];
+    const pad = (n: number) => String(n).padStart(2, "0");
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 2000, max: 2039 }),
+        fc.constantFrom(3, 4, 9, 10, 11),
+        fc.integer({ min: 0, max: 4 }),
+        fc.integer({ min: 0, max: 4 * 60 - 1 }),
+        fc.constantFrom(...zones),
+        (year, month, sunday, minuteOfNight, zone) => {
+          // The first to fifth Sunday of the month (the fifth falls back to the fourth if missing),
+          // where the zones in this list change their clocks, between 00:00 and 03:59.
+          const firstSunday = 1 + ((7 - new Date(Date.UTC(year, month - 1, 1)).getUTCDay()) % 7);
+          const daysInMonth = new Date(Date.UTC(year, month, 0)).getUTCDate();
+          let day = firstSunday + 7 * sunday;
+          if (day > daysInMonth) day -= 7;
+          const local = `${year}-${pad(month)}-${pad(day)}T${pad(Math.floor(minuteOfNight / 60))}:${pad(minuteOfNight % 60)}`;
+          const wallAsUtc = Date.UTC(
+            year,
+            month - 1,
+            day,
+            Math.floor(minuteOfNight / 60),
+            minuteOfNight % 60,
+          );
+          const result = zonedToUtc(local, zone);
+          if (result.ok) expect(utcToZonedLocal(result.instant, zone)).toBe(local);
+          else {
+            expect(result.reason).toBe("skipped");
+            // A gap lies where the offset changes: a day either side shows different offsets.
+            expect(zoneOffsetMinutes(new Date(wallAsUtc - 86_400_000), zone)).not.toBe(
+              zoneOffsetMinutes(new Date(wallAsUtc + 86_400_000), zone),
+            );
+          }
+        },
+      ),
+      { numRuns: 500 },
     );
   });
 });
