@@ -40,6 +40,7 @@ import {
   type Role,
   type SlotReservation,
 } from "../lib/domain";
+import { LENGTH } from "../lib/validations/limits";
 
 const id = () => bigint("id", { mode: "number", unsigned: true }).autoincrement().primaryKey();
 const ref = (name: string) => bigint(name, { mode: "number", unsigned: true });
@@ -64,8 +65,8 @@ export const users = mysqlTable("user", {
   id: varchar("id", { length: 255 })
     .primaryKey()
     .$defaultFn(() => crypto.randomUUID()),
-  name: varchar("name", { length: 255 }),
-  email: varchar("email", { length: 255 }).unique(),
+  name: varchar("name", { length: LENGTH.personName }),
+  email: varchar("email", { length: LENGTH.email }).unique(),
   emailVerified: timestamp("emailVerified", { mode: "date", fsp: 3 }),
   image: varchar("image", { length: 255 }),
   /** argon2id hash; null for people who only ever sign in by e-mail link. */
@@ -109,7 +110,7 @@ export const sessions = mysqlTable("session", {
 export const verificationTokens = mysqlTable(
   "verificationToken",
   {
-    identifier: varchar("identifier", { length: 255 }).notNull(),
+    identifier: varchar("identifier", { length: LENGTH.email }).notNull(),
     token: varchar("token", { length: 255 }).notNull(),
     expires: timestamp("expires", { mode: "date" }).notNull(),
   },
@@ -121,8 +122,8 @@ export const verificationTokens = mysqlTable(
 export const anthologies = mysqlTable("anthology", {
   id: id(),
   slug: varchar("slug", { length: 80 }).notNull().unique(),
-  title: varchar("title", { length: 200 }).notNull(),
-  pressName: varchar("press_name", { length: 200 }),
+  title: varchar("title", { length: LENGTH.anthologyTitle }).notNull(),
+  pressName: varchar("press_name", { length: LENGTH.pressName }),
   summary: text("summary"),
   stage: varchar("stage", { length: 24, enum: ANTHOLOGY_STAGES })
     .$type<AnthologyStage>()
@@ -184,7 +185,7 @@ export const invitations = mysqlTable(
     anthologyId: ref("anthology_id")
       .notNull()
       .references(() => anthologies.id, { onDelete: "cascade" }),
-    email: varchar("email", { length: 255 }).notNull(),
+    email: varchar("email", { length: LENGTH.email }).notNull(),
     role: varchar("role", { length: 16, enum: ROLES }).$type<Role>().notNull(),
     /** sha256 of the token sent by e-mail; the token itself is never stored. */
     tokenHash: char("token_hash", { length: 64 }).notNull().unique(),
@@ -207,12 +208,12 @@ export const calls = mysqlTable("open_call", {
     .notNull()
     .unique()
     .references(() => anthologies.id, { onDelete: "cascade" }),
-  theme: varchar("theme", { length: 200 }).notNull(),
+  theme: varchar("theme", { length: LENGTH.callTheme }).notNull(),
   brief: text("brief").notNull(),
   opensAt: datetime("opens_at", { mode: "date" }).notNull(),
   closesAt: datetime("closes_at", { mode: "date" }).notNull(),
   /** IANA zone the editor wrote the dates in, for display. */
-  timeZone: varchar("time_zone", { length: 64 }).notNull(),
+  timeZone: varchar("time_zone", { length: LENGTH.timeZone }).notNull(),
   allowedKinds: json("allowed_kinds").$type<PieceKind[]>().notNull(),
   maxRunPages: int("max_run_pages").notNull().default(4),
   piecesPerPerson: int("pieces_per_person").notNull().default(2),
@@ -241,11 +242,11 @@ export const pieces = mysqlTable(
     contributorId: userRef("contributor_id")
       .notNull()
       .references(() => users.id),
-    title: varchar("title", { length: 200 }).notNull(),
+    title: varchar("title", { length: LENGTH.pieceTitle }).notNull(),
     kind: varchar("kind", { length: 16, enum: PIECE_KINDS }).$type<PieceKind>().notNull(),
     pageCount: int("page_count").notNull(),
     inks: json("inks").$type<string[]>().notNull(),
-    creditLine: varchar("credit_line", { length: 200 }).notNull(),
+    creditLine: varchar("credit_line", { length: LENGTH.creditLine }).notNull(),
     creditApprovedAt: datetime("credit_approved_at", { mode: "date" }),
     statement: text("statement"),
     status: varchar("status", { length: 24, enum: PIECE_STATUSES })
@@ -384,7 +385,7 @@ export const emailLog = mysqlTable(
     id: id(),
     anthologyId: ref("anthology_id"),
     pieceId: ref("piece_id"),
-    toEmail: varchar("to_email", { length: 255 }).notNull(),
+    toEmail: varchar("to_email", { length: LENGTH.email }).notNull(),
     subject: varchar("subject", { length: 255 }).notNull(),
     kind: varchar("kind", { length: 40 }).notNull(),
     /** Set for mails that must go out once only (e.g. page notices). */

@@ -1,8 +1,9 @@
 import { z } from "zod";
+import { LENGTH } from "./limits";
+import { singleLineText } from "./text";
 
-export const emailSchema = z
-  .string()
-  .trim()
+/** An e-mail address, trimmed and lowercased, that fits the e-mail columns (varchar(255)). */
+export const emailSchema = singleLineText(LENGTH.email)
   .toLowerCase()
   .pipe(z.email("Enter an e-mail address like name@example.org"));
 
@@ -23,7 +24,7 @@ const COMMON_PASSWORDS = new Set([
 ]);
 
 export const signUpSchema = z.object({
-  name: z.string().trim().min(1, "Tell us your name").max(120, "Keep it under 120 characters"),
+  name: singleLineText(LENGTH.personName).min(1, "Tell us your name"),
   email: emailSchema,
   password: newPasswordSchema,
 });

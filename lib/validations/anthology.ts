@@ -3,6 +3,9 @@ import { BINDINGS, COVER_STOCKS, PRINT_METHODS } from "@/lib/domain";
 import { defaultCaliperMm } from "@/lib/print/paper";
 import { findPreset } from "@/lib/print/sizes";
 import { inToMm } from "@/lib/print/units";
+import { emailSchema } from "./account";
+import { INK_NAME_MAX, INKS_MAX, LENGTH, TEXT_CAP } from "./limits";
+import { multiLineText, singleLineText } from "./text";
 
 /** Trim choices the new-anthology form offers, in the order shown; "custom" takes a size. */
 export const TRIM_CHOICES = [
@@ -28,13 +31,9 @@ const optionalNumber = z.preprocess(
 /** What the new-anthology form sends and the route handler accepts; lengths in the chosen unit. */
 export const anthologyInputSchema = z
   .object({
-    title: z
-      .string()
-      .trim()
-      .min(2, "Give the anthology a title")
-      .max(200, "Keep the title under 200 characters"),
-    pressName: z.string().trim().max(200).optional().default(""),
-    summary: z.string().trim().max(2000).optional().default(""),
+    title: singleLineText(LENGTH.anthologyTitle).min(2, "Give the anthology a title"),
+    pressName: singleLineText(LENGTH.pressName).optional().default(""),
+    summary: multiLineText(TEXT_CAP.anthologySummary).optional().default(""),
     trimChoice: z.enum(TRIM_CHOICES, { error: "Choose a trim size" }),
     orientation: z.enum(["portrait", "landscape"]).default("portrait"),
     unit: z.enum(["mm", "in"]).default("mm"),
@@ -67,9 +66,9 @@ export const anthologyInputSchema = z
     ),
     printMethod: z.enum(PRINT_METHODS),
     inks: z
-      .array(z.string().trim().min(1).max(40))
+      .array(singleLineText(INK_NAME_MAX).min(1))
       .min(1, "Name at least one ink")
-      .max(8, "At most 8 inks"),
+      .max(INKS_MAX, `At most ${INKS_MAX} inks`),
     inksPerPass: z.coerce.number().int().min(1).max(8).default(1),
     minPpi: z.coerce.number().int().min(72, "Below 72 ppi nothing prints well").max(2400),
   })
@@ -165,10 +164,6 @@ export function slugify(title: string): string {
 }
 
 export const inviteSchema = z.object({
-  email: z
-    .string()
-    .trim()
-    .toLowerCase()
-    .pipe(z.email("Enter an e-mail address like name@example.org")),
+  email: emailSchema,
   role: z.enum(["lead", "editor", "finisher", "contributor"], { error: "Choose a role" }),
 });

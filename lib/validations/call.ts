@@ -8,6 +8,8 @@ import {
 } from "@/lib/domain";
 import { parseCents } from "@/lib/money";
 import { isValidTimeZone, LOCAL_DATE_TIME, utcToZonedLocal, zonedToUtc } from "@/lib/time-zones";
+import { INK_NAME_MAX, INKS_MAX, LENGTH, TEXT_CAP } from "./limits";
+import { multiLineText, singleLineText } from "./text";
 
 /** The open call as stored (UTC instants, integer cents and basis points). */
 export interface CallRecord {
@@ -93,38 +95,34 @@ const zoneDateTime = (label: string) =>
  */
 export const callInputSchema = z
   .object({
-    theme: z
-      .string()
-      .trim()
-      .min(2, "Give the call a theme")
-      .max(200, "Keep the theme under 200 characters"),
-    brief: z
-      .string()
-      .trim()
-      .min(20, "Write a brief of at least a sentence or two")
-      .max(10_000, "Keep the brief under 10,000 characters"),
+    theme: singleLineText(LENGTH.callTheme).min(2, "Give the call a theme"),
+    brief: multiLineText(TEXT_CAP.callBrief).min(20, "Write a brief of at least a sentence or two"),
     opensAt: zoneDateTime("opening"),
     closesAt: zoneDateTime("closing"),
-    timeZone: z.string().trim().refine(isValidTimeZone, "Choose a time zone from the list"),
+    timeZone: singleLineText(LENGTH.timeZone).refine(
+      isValidTimeZone,
+      "Choose a time zone from the list",
+    ),
     allowedKinds: z
       .array(z.enum(PIECE_KINDS, { error: "Unknown kind of piece" }), {
         error: "Say what a piece may be",
       })
-      .min(1, "Allow at least one kind of piece"),
+      .min(1, "Allow at least one kind of piece")
+      .max(PIECE_KINDS.length, `At most ${PIECE_KINDS.length} kinds`),
     maxRunPages: wholeNumber("The longest run", 2, 64),
     piecesPerPerson: wholeNumber("Pieces per person", 1, 20),
     allowedInks: z
-      .array(z.string().trim().min(1).max(40), { error: "Choose the inks a piece may use" })
-      .min(1, "Allow at least one ink"),
+      .array(singleLineText(INK_NAME_MAX).min(1), { error: "Choose the inks a piece may use" })
+      .min(1, "Allow at least one ink")
+      .max(INKS_MAX, `At most ${INKS_MAX} inks`),
     feeKind: z.enum(FEE_KINDS, { error: "Choose how the fee is paid" }),
     fee: z.coerce.string().trim().default("0"),
     salesSharePercent: z.coerce.string().trim().default("0"),
     contributorCopies: wholeNumber("Contributor copies", 0, 50),
-    rightsAsked: z
-      .string()
-      .trim()
-      .min(10, "Say which rights you ask for and when they return")
-      .max(4000, "Keep the rights under 4,000 characters"),
+    rightsAsked: multiLineText(TEXT_CAP.callRights).min(
+      10,
+      "Say which rights you ask for and when they return",
+    ),
   })
   .superRefine((v, ctx) => {
     const opens = zonedToUtc(v.opensAt, v.timeZone);

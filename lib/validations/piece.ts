@@ -1,5 +1,7 @@
 import { z } from "zod";
 import { PIECE_KINDS, type PieceKind } from "@/lib/domain";
+import { INK_NAME_MAX, INKS_MAX, LENGTH, TEXT_CAP } from "./limits";
+import { multiLineText, singleLineText } from "./text";
 
 /** What an open call allows a piece to be; the form and the route handler check against it. */
 export type CallRules = { allowedKinds: PieceKind[]; maxRunPages: number; allowedInks: string[] };
@@ -8,32 +10,25 @@ export type CallRules = { allowedKinds: PieceKind[]; maxRunPages: number; allowe
 export const MAX_PIECE_PAGES = 64;
 
 const pieceFields = z.object({
-  title: z
-    .string()
-    .trim()
-    .min(1, "Give the piece a title")
-    .max(200, "Keep the title under 200 characters"),
+  title: singleLineText(LENGTH.pieceTitle).min(1, "Give the piece a title"),
   kind: z.enum(PIECE_KINDS, { error: "Choose what kind of piece this is" }),
   pageCount: z.coerce
     .number({ error: "Page count must be a number" })
     .int("Whole pages only")
     .min(1, "At least one page")
     .max(MAX_PIECE_PAGES, `At most ${MAX_PIECE_PAGES} pages`),
-  inks: z.array(z.string().trim().min(1).max(40)).max(8, "At most 8 inks").default([]),
-  creditLine: z
-    .string()
-    .trim()
-    .min(2, "Say how your name should appear in the credits")
-    .max(200, "Keep the credit line under 200 characters"),
-  statement: z
-    .string()
-    .trim()
-    .max(1200, "Keep the statement under 1200 characters")
-    .optional()
-    .default(""),
+  inks: z
+    .array(singleLineText(INK_NAME_MAX).min(1))
+    .max(INKS_MAX, `At most ${INKS_MAX} inks`)
+    .default([]),
+  creditLine: singleLineText(LENGTH.creditLine).min(
+    2,
+    "Say how your name should appear in the credits",
+  ),
+  statement: multiLineText(TEXT_CAP.pieceStatement).optional().default(""),
   altTexts: z
-    .array(z.string().trim().max(1000, "Keep each description under 1000 characters"))
-    .max(MAX_PIECE_PAGES)
+    .array(multiLineText(TEXT_CAP.altText))
+    .max(MAX_PIECE_PAGES, `At most ${MAX_PIECE_PAGES} page descriptions`)
     .default([]),
 });
 
@@ -98,7 +93,10 @@ export function pieceSchemaFor(rules: CallRules) {
 
 /** The contributor's actions on their own piece. */
 export const pieceActionSchema = z.discriminatedUnion("action", [
-  z.object({ action: z.literal("withdraw"), reason: z.string().trim().max(500).optional() }),
+  z.object({
+    action: z.literal("withdraw"),
+    reason: multiLineText(TEXT_CAP.withdrawReason).optional(),
+  }),
   z.object({
     action: z.literal("use-version"),
     pageIndex: z.number().int().min(1),
@@ -108,7 +106,7 @@ export const pieceActionSchema = z.discriminatedUnion("action", [
   z.object({
     action: z.literal("alt-text"),
     pageIndex: z.number().int().min(1),
-    altText: z.string().trim().max(1000, "Keep the description under 1000 characters"),
+    altText: multiLineText(TEXT_CAP.altText),
   }),
 ]);
 export type PieceAction = z.infer<typeof pieceActionSchema>;

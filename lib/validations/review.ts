@@ -1,6 +1,8 @@
 import { z } from "zod";
 import { PIECE_STATUSES, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { PIECE_VERDICTS } from "@/lib/pieces/verdict";
+import { SEARCH_MAX, TEXT_CAP } from "./limits";
+import { multiLineText, singleLineText } from "./text";
 
 /** Columns of the submissions table the server can sort by; the table's column ids are these. */
 export const SUBMISSION_SORTS = [
@@ -53,7 +55,7 @@ export const submissionsQuerySchema = z.object({
   dir: z
     .enum(["asc", "desc"], { error: "dir must be asc or desc" })
     .default(SUBMISSIONS_DEFAULTS.dir),
-  q: z.string().trim().max(200, "Keep the search under 200 characters").default(""),
+  q: singleLineText(SEARCH_MAX).default(""),
   status: listOf(PIECE_STATUSES, "status").default([]),
   verdict: listOf(PIECE_VERDICTS, "verdict").default([]),
 });
@@ -100,8 +102,6 @@ export function queryToSearchParams(query: SubmissionsQuery): URLSearchParams {
   return out;
 }
 
-const MESSAGE_MAX = 2000;
-
 /** "Fix asked" must tell the contributor what to fix; other moves may carry an optional message. */
 function requireFixMessage(v: { to: PieceStatus; message?: string }, ctx: z.RefinementCtx) {
   if (v.to === "fix-requested" && !v.message) {
@@ -113,10 +113,7 @@ function requireFixMessage(v: { to: PieceStatus; message?: string }, ctx: z.Refi
   }
 }
 
-const optionalMessage = z
-  .string()
-  .trim()
-  .max(MESSAGE_MAX, `Keep the message under ${MESSAGE_MAX} characters`)
+const optionalMessage = multiLineText(TEXT_CAP.statusMessage)
   .optional()
   .transform((m) => (m ? m : undefined));
 
@@ -146,10 +143,6 @@ export type BulkStatusChangeInput = z.input<typeof bulkStatusChangeSchema>;
 
 /** An editors' note on a piece. */
 export const editorNoteSchema = z.object({
-  body: z
-    .string()
-    .trim()
-    .min(1, "Write the note first")
-    .max(4000, "Keep a note under 4000 characters"),
+  body: multiLineText(TEXT_CAP.editorNote).min(1, "Write the note first"),
 });
 export type EditorNoteInput = z.input<typeof editorNoteSchema>;
