@@ -31,7 +31,7 @@ export interface CallSpecSummary {
 export function colourModeText(printMethod: PrintMethod, inks: readonly string[]): string {
   switch (printMethod) {
     case "duplicator":
-      // Stencil duplicators print one ink per drum pass (REFERENCE §9, Fancyclopedia "Mimeography");
+      // Stencil duplicators print one ink per drum pass (Fancyclopedia 1 (c. 1944), "Mimeography", fancyclopedia.wikidot.com/mimeography);
       // one greyscale file per ink is common practice, no source.
       return inks.length > 1
         ? `One greyscale file per ink (${inks.join(", ")}), dark where that ink prints`

@@ -36,7 +36,8 @@ type DemoPiece = {
   status?: { to: PieceStatus; by: string; message: string };
 };
 
-// Half letter with 1/8 in bleed at 300 ppi is 1725 x 2625 px; without bleed 1650 x 2550 px (REFERENCE.md §5.1).
+// Half letter with 1/8 in bleed at 300 ppi is 1725 x 2625 px; without bleed 1650 x 2550 px (pixels = inches x
+// ppi, as in the Haematologica "Image resolution" advisor, submit.haematologica.org/image_analysis/advisor/image_resolution.html).
 const FULL = { width: 1725, height: 2625 };
 const TRIM_ONLY = { width: 1650, height: 2550 };
 

@@ -4,7 +4,7 @@
  * Desktop Publishing glossary, "creep"). Shingling compensates by moving each sheet's content
  * toward the spine (PrintWiki, "Shingling").
  *
- * Two models, neither from a handbook (REFERENCE §7):
+ * Two models, neither from a handbook:
  * - "linear" (common practice, no source): sheet k sticks out by the calipers of the sheets
  *   outside it, (k−1)·t for one stock; the innermost by (S−1)·t.
  * - "round-fold" (derived geometry): concentric semicircular folds lose π/2 per unit of

@@ -50,7 +50,10 @@ function assertBookletPages(pages: number): void {
     throw new RangeError(`a saddle-stitched booklet has a multiple of 4 pages, got ${pages}`);
 }
 
-/** Pages on the front and back of sheet k of an N-page booklet (REFERENCE §6.2 closed form). */
+/**
+ * Pages on the front and back of sheet k of an N-page booklet, in closed form: pages sharing a side
+ * sum to N + 1 (GeeksforGeeks "Puzzle 28 (Newspaper Puzzle)", geeksforgeeks.org/puzzle-28-newspaper-puzzle/).
+ */
 export function sheetLayout(pages: number, sheet: number): ImposedSheet {
   assertBookletPages(pages);
   const k = sheet;

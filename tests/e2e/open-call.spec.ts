@@ -80,7 +80,8 @@ test("a lead writes and opens a call; a stranger reads it and downloads the PNG 
   ]);
   expect(download.suggestedFilename()).toBe(`${slug}-page-template-1725x2625px-300ppi.png`);
   const meta = await sharp(await download.path()).metadata();
-  // Half letter + 0.125 in bleed at 300 ppi = 1725 x 2625 px (REFERENCE §5.1).
+  // Half letter + 0.125 in bleed at 300 ppi = 5.75 x 8.75 in x 300 = 1725 x 2625 px (pixels = inches x ppi,
+  // Haematologica "Image resolution" advisor, submit.haematologica.org/image_analysis/advisor/image_resolution.html).
   expect([meta.format, meta.width, meta.height]).toEqual(["png", 1725, 2625]);
   await stranger.close();
 });

@@ -21,7 +21,8 @@ test.afterAll(() => {
 
 /**
  * A greyscale page at 300 ppi whose mid-grey artwork runs to every edge. Half letter is
- * 1650 x 2550 px at 300 ppi, 1725 x 2625 px with 1/8 in bleed (REFERENCE.md §5.1, worked values).
+ * 1650 x 2550 px at 300 ppi, 1725 x 2625 px with 1/8 in bleed (pixels = inches x ppi, as in the
+ * Haematologica "Image resolution" advisor, submit.haematologica.org/image_analysis/advisor/image_resolution.html).
  */
 async function pagePng(name: string, widthPx: number, heightPx: number): Promise<string> {
   const file = join(workDir, name);

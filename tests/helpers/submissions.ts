@@ -109,7 +109,8 @@ export async function makePiece(
 
 /**
  * A greyscale PNG at 300 ppi, mid-grey to every edge. Half letter at 300 ppi is 1650 x 2550 px,
- * 1725 x 2625 px with 1/8 in bleed (REFERENCE.md §5.1, worked values).
+ * 1725 x 2625 px with 1/8 in bleed (pixels = inches x ppi, as in the
+ * Haematologica "Image resolution" advisor, submit.haematologica.org/image_analysis/advisor/image_resolution.html).
  */
 export async function greyPage(
   widthPx: number,

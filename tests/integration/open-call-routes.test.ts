@@ -142,7 +142,8 @@ describe("writing the call", () => {
     expect(body.call).toBeNull();
     expect(body.canEditTerms).toBe(true);
     expect(body.form.allowedInks).toEqual(["black", "teal"]);
-    // Half letter + 0.125 in bleed at 300 ppi = 1725 x 2625 px (REFERENCE §5.1).
+    // Half letter + 0.125 in bleed at 300 ppi = 5.75 x 8.75 in x 300 = 1725 x 2625 px (pixels = inches x ppi,
+    // Haematologica "Image resolution" advisor, submit.haematologica.org/image_analysis/advisor/image_resolution.html).
     expect(body.spec.pixels).toEqual({ widthPx: 1725, heightPx: 2625, ppi: 300 });
   });
 
@@ -261,7 +262,8 @@ describe("stages and the published call", () => {
     expect(pdf.status).toBe(200);
     expect(pdf.headers.get("content-type")).toBe("application/pdf");
     const page = (await PDFDocument.load(await pdf.arrayBuffer())).getPage(0);
-    // Half letter + 0.125 in bleed = 5.75 x 8.75 in = 414 x 630 pt (REFERENCE §4; 1 pt = 1/72 in, ISO 32000-1 Table 30).
+    // Half letter + 0.125 in bleed = 5.75 x 8.75 in = 414 x 630 pt (the BleedBox is the TrimBox grown by the
+    // bleed, ISO 32000-1:2008 Table 30; 1 pt = 1/72 in, ISO 32000-1 Table 30 UserUnit).
     expect(page.getMediaBox().width).toBeCloseTo(414, 6);
     expect(page.getTrimBox().x).toBeCloseTo(9, 6);
   });

@@ -91,7 +91,8 @@ const codes = (report: unknown) =>
 describe("a good page", () => {
   it("passes, stores a 480 px WebP thumbnail and its md5, makes the page current and mails the report", async () => {
     const pieceId = await makePiece(anthologyId, bea.id, { title: "Eel Grass" });
-    // Half letter + 1/8 in bleed at 300 ppi = 1725 x 2625 px (REFERENCE.md §5.1).
+    // Half letter + 1/8 in bleed at 300 ppi = 5.75 x 8.75 in x 300 = 1725 x 2625 px (pixels = inches x ppi,
+    // Haematologica "Image resolution" advisor, submit.haematologica.org/image_analysis/advisor/image_resolution.html).
     const result = await upload(
       pieceId,
       1,

@@ -15,7 +15,7 @@ const almanac = {
 };
 
 describe("the spec summary of a call", () => {
-  it("gives half letter + 0.125 in bleed as 5.75 x 8.75 in and 1725 x 2625 px at 300 ppi (REFERENCE §4, §5.1)", () => {
+  it("gives half letter + 0.125 in bleed as 5.75 x 8.75 in and 1725 x 2625 px at 300 ppi (trim + 2 x bleed; pixels = inches x ppi, Haematologica 'Image resolution' advisor)", () => {
     const summary = callSpecSummary(almanac);
     const row = (key: string) => summary.rows.find((r) => r.key === key)?.value;
     expect(summary.pixels).toEqual({ widthPx: 1725, heightPx: 2625, ppi: 300 });
@@ -27,7 +27,7 @@ describe("the spec summary of a call", () => {
     );
   });
 
-  it("gives A5 + 3 mm as 154 x 216 mm (REFERENCE §4) and rounds pixels up", () => {
+  it("gives A5 + 3 mm as 154 x 216 mm (ISO 216 A5 = 148 x 210 mm, plus 3 mm each side) and rounds pixels up", () => {
     const summary = callSpecSummary({
       ...almanac,
       trimPreset: "a5",

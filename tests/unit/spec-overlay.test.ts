@@ -3,7 +3,8 @@ import { overlayLayout } from "@/lib/pieces/overlay";
 import { inToMm } from "@/lib/print/units";
 
 // Half letter 5.5 x 8.5 in with 1/8 in bleed and a 1/4 in safe margin. 1 in = 25.4 mm exactly
-// (REFERENCE.md §2); half letter + 1/8 in bleed = 5.75 x 8.75 in (REFERENCE.md §4).
+// (NBS Circular 572 Addendum, 1960: the international yard is 0.9144 m); half letter + 1/8 in bleed =
+// 5.75 x 8.75 in (trim + 2 x bleed, derived).
 const spec = {
   trimWidthMm: inToMm(5.5),
   trimHeightMm: inToMm(8.5),

@@ -45,16 +45,17 @@ const near = (
 ) => actual.every((v, i) => Math.abs(v - expected[i]!) <= tolerance);
 
 describe("PNG template", () => {
-  it("is 1725 x 2625 px for half letter with 0.125 in bleed at 300 ppi, and says 300 ppi (REFERENCE §5.1)", async () => {
+  it("is 1725 x 2625 px for half letter with 0.125 in bleed at 300 ppi, and says 300 ppi (pixels = inches x ppi, Haematologica 'Image resolution' advisor)", async () => {
     const png = await renderTemplatePng(halfLetter);
     const meta = await sharp(png).metadata();
     expect(meta.format).toBe("png");
     expect([meta.width, meta.height]).toEqual([1725, 2625]);
-    // pHYs 11811 px/m reads back as 300 ppi (PNG spec §11.3.5.3; REFERENCE §5.2).
+    // pHYs 11811 px/m reads back as 300 ppi (PNG (W3C, 2nd ed.) = ISO/IEC 15948:2003 §11.3.5.3 pHYs, unit 1 =
+    // metre; PNG 1.2: "One inch is equal to exactly 0.0254 meters", so 11811 x 0.0254 = 299.9994).
     expect(meta.density).toBe(300);
   });
 
-  it("rounds A5 with 3 mm bleed up to whole pixels: 1818.90 x 2551.18 → 1819 x 2552 (REFERENCE §5.1)", () => {
+  it("rounds A5 with 3 mm bleed up to whole pixels: 1818.90 x 2551.18 → 1819 x 2552 (ISO 216 A5 + 2 x 3 mm = 154 x 216 mm, ÷ 25.4 x 300 ppi)", () => {
     expect(pngLayout(a5)).toMatchObject({ widthPx: 1819, heightPx: 2552, ppi: 300 });
   });
 
@@ -98,7 +99,7 @@ describe("PNG template", () => {
 });
 
 describe("PDF template", () => {
-  it("sets MediaBox = BleedBox = A5 + 3 mm and the TrimBox 3 mm in (REFERENCE §3.3 worked check)", async () => {
+  it("sets MediaBox = BleedBox = A5 + 3 mm and the TrimBox 3 mm in (ISO 216 A5; boxes per ISO 32000-1:2008 Table 30)", async () => {
     const doc = await PDFDocument.load(await renderTemplatePdf(a5));
     expect(doc.getPageCount()).toBe(1);
     const page = doc.getPage(0);
@@ -117,7 +118,7 @@ describe("PDF template", () => {
     expect(trim.height).toBeCloseTo(595.275591, 5);
   });
 
-  it("is 414 x 630 pt for half letter + 0.125 in, trim 396 x 612 pt at 9 pt in (REFERENCE §1.3, §2)", async () => {
+  it("is 414 x 630 pt for half letter + 0.125 in, trim 396 x 612 pt at 9 pt in (half letter 5.5 x 8.5 in, PWG 5101.1 na_invoice_5.5x8.5in; 1 pt = 1/72 in, ISO 32000-1 Table 30)", async () => {
     expect(pdfBoxes(halfLetter).media.width).toBeCloseTo(414, 9);
     const page = (await PDFDocument.load(await renderTemplatePdf(halfLetter))).getPage(0);
     expect(page.getMediaBox().width).toBeCloseTo(414, 6);

@@ -3,7 +3,7 @@ import { checkMap } from "@/lib/map";
 import { codes, map, run, single, spread, withPlaced } from "./fixtures";
 
 describe("page count for the binding", () => {
-  it("saddle stitch: 10 pages ask for 2 blanks, pages 11 and 12 (REFERENCE §6.1 padding: 10 → 12)", () => {
+  it("saddle stitch: 10 pages ask for 2 blanks, pages 11 and 12 (a multiple of 4 pages, IWPCUG puzzle 'Pages of a booklet': 10 → 12)", () => {
     const check = checkMap(map(10, []));
     const m = check.errors.find((e) => e.code === "page-count-not-multiple-of-4");
     expect(m?.pages).toEqual([11, 12]);
@@ -12,7 +12,7 @@ describe("page count for the binding", () => {
     expect(check.ok).toBe(false);
   });
 
-  it("13 → 16 with 3 blanks; 17 → 20 with 3 blanks (REFERENCE §6.1)", () => {
+  it("13 → 16 with 3 blanks; 17 → 20 with 3 blanks (padding to a multiple of 4, IWPCUG puzzle 'Pages of a booklet')", () => {
     expect(
       checkMap(map(13, [])).errors.find((e) => e.code === "page-count-not-multiple-of-4")?.pages,
     ).toEqual([14, 15, 16]);
@@ -56,7 +56,7 @@ describe("where pieces sit", () => {
     expect(codes(checkMap(apart).errors)).toContain("spread-not-on-facing-pages");
   });
 
-  it("a spread off the centre sheet warns that it crosses two sheets; the centre spread does not (REFERENCE §6.3)", () => {
+  it("a spread off the centre sheet warns that it crosses two sheets; the centre spread does not (N + 1 rule, GeeksforGeeks 'Puzzle 28 (Newspaper Puzzle)')", () => {
     const off = checkMap(withPlaced(map(8, [spread(1, ["black"])]), [[1, [2, 3]]]));
     const w = off.warnings.find((x) => x.code === "spread-across-sheets");
     expect(w?.message).toContain("page 2 on sheet 1, page 3 on sheet 2");
@@ -113,8 +113,8 @@ describe("where pieces sit", () => {
 });
 
 describe("ink warnings", () => {
-  it("a side with 2 inks on a one-ink duplicator needs 2 passes and says so (REFERENCE §9 duplicator: one run per colour)", () => {
-    // 8 pages: sheet 1 front is 8|1 (REFERENCE §6.3).
+  it("a side with 2 inks on a one-ink duplicator needs 2 passes and says so (Fancyclopedia 'Mimeography': one run per colour)", () => {
+    // 8 pages: sheet 1 front is 8|1 (pages sharing a side sum to N + 1, GeeksforGeeks "Puzzle 28 (Newspaper Puzzle)", geeksforgeeks.org/puzzle-28-newspaper-puzzle/).
     const state = withPlaced(map(8, [single(1, ["black"]), single(2, ["teal"])]), [
       [1, [1]],
       [2, [8]],

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { readerSpreads, sheetSides } from "@/lib/map";
 
 describe("reader spreads", () => {
-  it("8 pages: cover alone, 2–3, 4–5, 6–7, back cover alone (REFERENCE §6.4 side note, CSS Paged Media 'Facing Pages')", () => {
+  it("8 pages: cover alone, 2–3, 4–5, 6–7, back cover alone (W3C CSS Paged Media Module Level 3, 'Facing Pages')", () => {
     expect(readerSpreads(8)).toEqual([
       { kind: "front-cover", pages: [1] },
       { kind: "spread", pages: [2, 3] },
@@ -32,7 +32,7 @@ describe("reader spreads", () => {
 });
 
 describe("sheet sides", () => {
-  it("8 pages match REFERENCE §6.3: sheet 1 front 8|1 back 2|7, sheet 2 front 6|3 back 4|5 (centre)", () => {
+  it("8 pages by the N + 1 rule (GeeksforGeeks 'Puzzle 28 (Newspaper Puzzle)'): sheet 1 front 8|1 back 2|7, sheet 2 front 6|3 back 4|5 (centre)", () => {
     const plan = sheetSides(8, "saddle-stitch");
     expect(plan.sheets.map((s) => [s.front.pages, s.back.pages, s.centre])).toEqual([
       [[8, 1], [2, 7], false],
@@ -43,7 +43,7 @@ describe("sheet sides", () => {
     expect(plan.paddingPages).toEqual([]);
   });
 
-  it("16 pages match REFERENCE §6.4 side order [16,1] [2,15] [14,3] [4,13] [12,5] [6,11] [10,7] [8,9]", () => {
+  it("16 pages by the N + 1 rule, side order [16,1] [2,15] [14,3] [4,13] [12,5] [6,11] [10,7] [8,9]", () => {
     const plan = sheetSides(16, "saddle-stitch");
     expect(plan.sheets.flatMap((s) => [s.front.pages, s.back.pages])).toEqual([
       [16, 1],
@@ -59,7 +59,7 @@ describe("sheet sides", () => {
     expect(plan.centreSpread).toEqual([8, 9]);
   });
 
-  it("pages sharing a side sum to N+1 (REFERENCE §6.1, newspaper puzzle) for every multiple of 4 up to 96", () => {
+  it("pages sharing a side sum to N+1 (GeeksforGeeks 'Puzzle 28 (Newspaper Puzzle)'; Maths Is Fun 'Newspaper Caper') for every multiple of 4 up to 96", () => {
     for (let n = 4; n <= 96; n += 4) {
       const plan = sheetSides(n, "saddle-stitch");
       expect(plan.sheets).toHaveLength(n / 4);
@@ -69,7 +69,7 @@ describe("sheet sides", () => {
     }
   });
 
-  it("10 pages are laid out as 12 with pages 11 and 12 as padding (REFERENCE §6.1: 10 → 12, 2 blanks)", () => {
+  it("10 pages are laid out as 12 with pages 11 and 12 as padding (a booklet has a multiple of 4 pages, IWPCUG puzzle 'Pages of a booklet': 10 → 12, 2 blanks)", () => {
     const plan = sheetSides(10, "saddle-stitch");
     expect(plan.laidOutPages).toBe(12);
     expect(plan.paddingPages).toEqual([11, 12]);

@@ -4,7 +4,8 @@ import { countPasses, passesForInks } from "@/lib/map";
 import { map, single, spread, withPlaced } from "./fixtures";
 
 /*
- * Hand-worked example, 8 pages, 2 sheets (sides from REFERENCE §6.3):
+ * Hand-worked example, 8 pages, 2 sheets (pages sharing a side sum to N + 1 = 9,
+ * GeeksforGeeks "Puzzle 28 (Newspaper Puzzle)", geeksforgeeks.org/puzzle-28-newspaper-puzzle/):
  *   sheet 1 front (8|1), back (2|7); sheet 2 front (6|3), back (4|5).
  * Pieces: 1 black on p1, 2 teal on p8, 3 black spread on p2–3, 4 teal spread on p4–5,
  *         5 black on p6, 6 teal on p7.
@@ -14,7 +15,8 @@ import { map, single, spread, withPlaced } from "./fixtures";
  *   sheet 2 back : p4 teal  + p5 teal  → {teal}        → 1 pass
  *   per copy 2+2+1+1 = 6 passes; 50 copies → 300; stencils 2+2+1+1 = 6.
  * With a press laying 2 inks per pass every side needs ⌈n/2⌉ = 1 pass → 4 per copy.
- * One pass per ink per side: Fancyclopedia "Mimeography" (REFERENCE §9, [S53]).
+ * One pass per ink per side: Fancyclopedia 1 (c. 1944), "Mimeography", fancyclopedia.wikidot.com/mimeography:
+ * "Each copy sheet is run thru the mimeo as many times as there are colors".
  */
 const pieces = [
   single(1, ["black"]),
@@ -92,7 +94,7 @@ describe("drum passes, hand-worked 8-page example", () => {
   });
 });
 
-describe("drum passes agree with the reverse lookup q = min(p, N+1−p), side = front if q odd (REFERENCE §6.2)", () => {
+describe("drum passes agree with the reverse lookup q = min(p, N+1−p), side = front if q odd (from the N + 1 rule, GeeksforGeeks 'Puzzle 28 (Newspaper Puzzle)')", () => {
   it("for random placements of single pages", () => {
     const inks = ["black", "teal", "red", "gold"];
     fc.assert(

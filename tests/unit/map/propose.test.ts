@@ -120,7 +120,8 @@ function noSlotUsedTwice(state: MapState): void {
 
 describe("proposal, hand-worked cases", () => {
   it("groups pieces by ink: four black and four teal singles into 8 pages need 4 passes (one ink per side)", () => {
-    // 8 pages = 4 sides of 2 pages (REFERENCE §6.3); 4 black pages fill 2 sides, 4 teal the other 2 → 4 passes.
+    // 8 pages = 4 sides of 2 pages (a sheet folded once carries 4 pages, Jack Lynch, Guide to Literary and Rhetorical Terms, "sheet", andromeda.rutgers.edu/~jlynch/Terms/sheet.html);
+    // 4 black pages fill 2 sides, 4 teal the other 2 → 4 passes.
     const pieces = [1, 2, 3, 4]
       .map((i) => single(i, ["black"]))
       .concat([5, 6, 7, 8].map((i) => single(i, ["teal"])));
@@ -164,7 +165,7 @@ describe("proposal, hand-worked cases", () => {
     expect(r.passesAfter).toBe(2);
   });
 
-  it("puts a lone full-bleed spread on the centre spread (16 pages: 8|9, REFERENCE §6.4) and says why", () => {
+  it("puts a lone full-bleed spread on the centre spread (16 pages: 8|9 by the N + 1 rule) and says why", () => {
     const pieces = [
       spread(1, ["black"]),
       spread(2, ["black"], { fullBleed: true }),

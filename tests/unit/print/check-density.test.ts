@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { readDeclaredDensity } from "@/lib/print/check";
 import { jfifSegment, makePng, makeTiff, physData, withJfif } from "./fixtures";
 
-describe("PNG pHYs density table (ISO/IEC 15948 §11.3.5.3; REFERENCE §5.2)", () => {
+describe("PNG pHYs density table (ISO/IEC 15948:2003 = PNG (W3C, 2nd ed.) §11.3.5.3 pHYs; PNG 1.2: 1 in = 0.0254 m exactly)", () => {
   it.each([
     [72, 2835, 72.009],
     [96, 3780, 96.012],
@@ -50,7 +50,7 @@ describe("JFIF APP0 density (JFIF 1.02 p. 5: units 0 none, 1 dpi, 2 dots/cm)", (
     expect(d).toEqual({ xPpi: 300, yPpi: 300, source: "jfif", unit: "inch" });
   });
 
-  it("units 2, 118 dots/cm → 299.72 ppi (REFERENCE §5.3)", async () => {
+  it("units 2, 118 dots/cm → 299.72 ppi (JFIF 1.02, E. Hamilton 1992, p. 5: units 2 = dots per cm; x 2.54)", async () => {
     const d = readDeclaredDensity(withJfif(await base(), jfifSegment(2, 118, 118)), "jpeg");
     expect(d?.xPpi).toBeCloseTo(299.72, 2);
     expect(d?.unit).toBe("cm");

@@ -24,7 +24,8 @@ const halfLetter: PrintSpec = {
 const codes = (r: SpecReport) => r.findings.map((f) => f.code);
 const find = (r: SpecReport, code: string) => r.findings.find((f) => f.code === code);
 
-// A5 trim with 3 mm bleed, MediaBox = BleedBox (REFERENCE §3.3 worked check, pdf-lib 1.17.1):
+// A5 trim with 3 mm bleed, MediaBox = BleedBox (ISO 216 A5 = 148 x 210 mm; 1 pt = 1/72 in and the boxes per
+// ISO 32000-1:2008 Table 30; as pdf-lib 1.17.1 saves and reloads them):
 // MediaBox {0, 0, 436.535433, 612.283465}, TrimBox {8.503937, 8.503937, 419.527559, 595.275591}
 const A5_BLEED: [number, number] = [436.535433, 612.283465];
 const A5_TRIM: [number, number, number, number] = [8.503937, 8.503937, 419.527559, 595.275591];

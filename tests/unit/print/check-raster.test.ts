@@ -33,7 +33,7 @@ const codes = (r: SpecReport) => r.findings.map((f) => f.code);
 const find = (r: SpecReport, code: string) => r.findings.find((f) => f.code === code);
 
 describe("size against trim and bleed", () => {
-  it("1650 x 2550 px is half letter at 300 ppi without bleed: the fix asks for 1725 x 2625 px (REFERENCE §5.1)", async () => {
+  it("1650 x 2550 px is half letter at 300 ppi without bleed: the fix asks for 1725 x 2625 px (pixels = inches x ppi, Haematologica 'Image resolution' advisor)", async () => {
     const png = greyPng(1650, 2550, solid(60), 11811);
     const report = await checkArtwork(png, halfLetter(), { filename: "page.png" });
     expect(report.measured.sizeMatch).toBe("trim-only");
@@ -44,7 +44,8 @@ describe("size against trim and bleed", () => {
       "Your image is 1650 x 2550 px: that is the trim size without bleed",
     );
     expect(f?.fix).toBe("Extend the artwork by 0.125 in on every side: 1725 x 2625 px at 300 ppi.");
-    // 11811 px/m = 299.9994 ppi must not trip a 300 ppi minimum (PNG spec; REFERENCE §5.2)
+    // 11811 px/m = 299.9994 ppi must not trip a 300 ppi minimum (ISO/IEC 15948:2003 §11.3.5.3 pHYs counts
+    // pixels per metre; PNG 1.2: "One inch is equal to exactly 0.0254 meters")
     expect(codes(report)).not.toContain("resolution-low");
     expect(codes(report)).not.toContain("declared-density-differs");
   });
@@ -68,7 +69,7 @@ describe("size against trim and bleed", () => {
     expect(report.verdict).toBe("pass");
   });
 
-  it("A5 at 300 ppi: 1748 x 2480 px (299.995 ppi) passes a 300 ppi minimum (REFERENCE §5.1)", async () => {
+  it("A5 at 300 ppi: 1748 x 2480 px (299.995 ppi) passes a 300 ppi minimum (1748 px ÷ (148 mm ÷ 25.4), derived)", async () => {
     const a5: PrintSpec = {
       trimWidthMm: 148,
       trimHeightMm: 210,

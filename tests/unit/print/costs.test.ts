@@ -24,7 +24,8 @@ const steps = [
   { id: "trim-fore-edge", label: "Trim the fore-edge", setupMinutes: 5, minutesPerCopy: 0.2 },
 ];
 
-// 16-page half-letter on letter, self cover: 4 sheets, 8 sides a copy (REFERENCE §11)
+// 16-page half-letter on letter, self cover: 4 sheets, 8 sides a copy (a sheet folded once carries 4 pages,
+// Jack Lynch, Guide to Literary and Rhetorical Terms, "sheet", andromeda.rutgers.edu/~jlynch/Terms/sheet.html)
 const plan = planSaddleStitch({ contentPages: 16, cover: "self" });
 const laser: HomeRunInputs = {
   insideSheetsPerCopy: plan.textSheetsPerCopy,
@@ -38,7 +39,7 @@ const laser: HomeRunInputs = {
 };
 
 describe("run cost", () => {
-  it("100 copies: 400 sheets (REFERENCE §11) plus 5 % overs = 420", () => {
+  it("100 copies: 400 sheets (4 a copy) plus 5 % overs = 420", () => {
     const run = runCost(laser, 100);
     expect(run.insideSheets).toBe(420);
     // 420 × 900/500 = 756; 840 sides × 3 = 2520; 200 staples × 500/5000 = 20

@@ -1,7 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { closedThicknessMm, creepPerSheetMm, pageShifts, sheetCalipersMm } from "@/lib/print/creep";
 
-// REFERENCE §7 worked creep values. Linear model: common practice, no source; round-fold model: derived.
+// Worked creep values. Linear model: common practice, no source; round-fold model: derived geometry.
+// Caliper 0.1 mm: copy paper is about 0.004 in (The Physics Factbook, "Thickness of a Piece of Paper",
+// hypertextbook.com/facts/2001/JuliaSherlis.shtml; a measured 75 g/m² ream gives 0.103–0.104 mm a sheet).
 describe("per-sheet push-out", () => {
   it.each([
     [2, 0.1, [0, 0.1], 0.157, 0.4],
@@ -36,7 +38,7 @@ describe("per-page shift", () => {
   it("all four pages of a sheet move toward the spine by that sheet's push-out (PrintWiki 'Shingling')", () => {
     const shifts = pageShifts(16, 0.1);
     const byPage = new Map(shifts.map((s) => [s.page, s]));
-    // sheet 4 carries 7, 8, 9, 10 (REFERENCE §6.4)
+    // sheet 4 carries 7, 8, 9, 10 (7 + 10 = 8 + 9 = N + 1, GeeksforGeeks "Puzzle 28 (Newspaper Puzzle)", geeksforgeeks.org/puzzle-28-newspaper-puzzle/)
     for (const p of [7, 8, 9, 10]) expect(byPage.get(p)?.towardSpineMm).toBeCloseTo(0.3, 9);
     for (const p of [1, 2, 15, 16]) expect(byPage.get(p)?.towardSpineMm).toBe(0);
     // right-hand (odd) pages move left, left-hand (even) pages move right

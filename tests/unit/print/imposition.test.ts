@@ -17,7 +17,8 @@ import { inToMm } from "@/lib/print/units";
 
 describe("padding to a multiple of 4", () => {
   it.each([
-    // REFERENCE §6.1 derived: 10 → 12 (2 blanks), 13 → 16 (3 blanks), 17 → 20 (3 blanks)
+    // 4·⌈n/4⌉, a booklet having a multiple of 4 pages (IWPCUG Prize Puzzle, June 2009, "Pages of a booklet", iwpcug.org/davidbro/puz0906.htm):
+    // 10 → 12 (2 blanks), 13 → 16 (3 blanks), 17 → 20 (3 blanks)
     [10, 12, 2],
     [13, 16, 3],
     [17, 20, 3],
@@ -33,7 +34,8 @@ describe("padding to a multiple of 4", () => {
   });
 
   it("13 content pages: padded to 16, 4 sheets, blanks before the back cover by default", () => {
-    // REFERENCE §11: 13 content pages → 16 (3 blanks) → 4 sheets per copy
+    // 13 content pages → 16 (3 blanks) → 4 sheets per copy (a sheet folded once carries 4 pages,
+    // Jack Lynch, Guide to Literary and Rhetorical Terms, "sheet", andromeda.rutgers.edu/~jlynch/Terms/sheet.html)
     const plan = planSaddleStitch({ contentPages: 13, cover: "self" });
     expect(plan.pages).toBe(16);
     expect(plan.sheetsPerCopy).toBe(4);
@@ -45,7 +47,7 @@ describe("padding to a multiple of 4", () => {
   });
 });
 
-describe("8-page worked example (REFERENCE §6.3)", () => {
+describe("8-page example worked from the N + 1 rule (GeeksforGeeks 'Puzzle 28 (Newspaper Puzzle)')", () => {
   it("sheet 1: front 8|1, back 2|7; sheet 2: front 6|3, back 4|5", () => {
     expect(saddleStitchSheets(8)).toEqual([
       { sheet: 1, front: { left: 8, right: 1 }, back: { left: 2, right: 7 } },
@@ -76,7 +78,7 @@ describe("8-page worked example (REFERENCE §6.3)", () => {
   });
 });
 
-describe("16-page worked example (REFERENCE §6.4)", () => {
+describe("16-page example worked from the N + 1 rule", () => {
   it("front and back of each of the 4 sheets", () => {
     expect(
       saddleStitchSheets(16).map((s) => [s.front.left, s.front.right, s.back.left, s.back.right]),
@@ -165,7 +167,7 @@ describe("reader spreads", () => {
 });
 
 describe("cover stock", () => {
-  it("separate cover: 1 cover sheet + (N − 4)/4 text sheets (REFERENCE §6.1 derived; cover convention common practice)", () => {
+  it("separate cover: 1 cover sheet + (N − 4)/4 text sheets (4 pages a folded sheet, Jack Lynch 'sheet'; cover convention common practice, no source)", () => {
     const plan = planSaddleStitch({ contentPages: 8, cover: "separate" });
     expect(plan.coverSheetsPerCopy).toBe(1);
     expect(plan.textSheetsPerCopy).toBe(1);

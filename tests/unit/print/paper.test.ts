@@ -19,7 +19,8 @@ describe("grammage and US basis weight", () => {
   });
 
   it.each([
-    // REFERENCE §8.1: factors match PrintWiki "Grammage" (3.760, 2.704, 1.627, 1.480) and sizes.com
+    // Factors match PrintWiki "Grammage" (printwiki.org/Grammage: 3.760, 2.704, 1.627, 1.480) and
+    // sizes.com "Paper: Printing, US" (sizes.com/materials/paperPrintingUS.htm)
     ["bond", 3.75973],
     ["text", 1.48015],
     ["cover", 2.70411],
@@ -54,7 +55,8 @@ describe("grammage and US basis weight", () => {
   });
 
   it.each([
-    // REFERENCE §8.1 derived equivalents
+    // Derived: g/m² = lb x 453.59237 / (500 x W x H x 0.00064516), W x H the grade's basis size in inches
+    // (PrintWiki "Basic Size", printwiki.org/Basic_Size)
     [80, "text", 118.41],
     [100, "text", 148.01],
     [65, "cover", 175.77],
@@ -83,7 +85,7 @@ describe("sheet weight", () => {
   });
 
   it("a ream of 20 lb bond letter weighs exactly 5 lb, since 17 x 22 in is four letter sheets", () => {
-    // REFERENCE §8.1 derived
+    // Derived: one 17 x 22 in bond basis sheet is exactly four 8.5 x 11 in letter sheets
     const letter = findPreset("letter");
     if (!letter) throw new Error("no letter");
     const gsm = basisWeightToGsm(20, "bond");

@@ -12,7 +12,8 @@ describe("duplicator ink passes", () => {
   ];
 
   it("8 pages: inks add up per sheet side, passes per copy and per run", () => {
-    // sides (REFERENCE §6.3): s1 front 8|1, s1 back 2|7, s2 front 6|3, s2 back 4|5
+    // sides (pages sharing a side sum to N + 1, GeeksforGeeks "Puzzle 28 (Newspaper Puzzle)", geeksforgeeks.org/puzzle-28-newspaper-puzzle/):
+    // s1 front 8|1, s1 back 2|7, s2 front 6|3, s2 back 4|5
     const plan = planInkPasses({
       pages: 8,
       copies: 50,

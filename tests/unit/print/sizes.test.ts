@@ -54,7 +54,8 @@ describe("ISO 216 catalogue", () => {
   });
 
   it("A(n+1) = floor(long side of A(n) / 2) x short side, for A0–A10 and B0–B10", () => {
-    // REFERENCE §1.1 derived fold rule, reproducing every tabulated ISO 216 size
+    // Fold rule derived from ISO 216:2007 (A(n+1) is A(n) halved parallel to its shorter side, in whole
+    // millimetres), reproducing every tabulated ISO 216 size
     for (const series of ["a", "b"]) {
       for (let n = 0; n < 10; n++) {
         const big = preset(`${series}${n}`);
@@ -157,7 +158,8 @@ describe("orientation", () => {
   });
 
   it("bleed box = trim grown by the bleed on every side", () => {
-    // REFERENCE §4 derived: A5 + 3 mm → 154 x 216 mm; half letter + 0.125 in → 5.75 x 8.75 in
+    // Derived (the BleedBox is the TrimBox grown by the bleed, ISO 32000-1:2008 Table 30):
+    // A5 + 3 mm → 154 x 216 mm; half letter + 0.125 in → 5.75 x 8.75 in
     expect(withBleed(preset("a5"), 3)).toEqual({ widthMm: 154, heightMm: 216 });
     const hl = withBleed(preset("half-letter"), inToMm(0.125));
     expect(hl.widthMm).toBeCloseTo(inToMm(5.75), 9);
@@ -167,7 +169,7 @@ describe("orientation", () => {
 
 describe("parent sheet of a saddle-stitched booklet", () => {
   it("A5 booklet prints on A4, A4 on A3 (ISO 216 tolerance)", () => {
-    // REFERENCE §1.3 typical pairings (derived): A4 sheet → A5 booklet; A3 → A4
+    // Typical pairings, derived from ISO 216:2007's halving rule: A4 sheet → A5 booklet; A3 → A4
     expect(parentSheetFor(preset("a5")).preset?.id).toBe("a4");
     expect(parentSheetFor(preset("a4")).preset?.id).toBe("a3");
   });

@@ -22,7 +22,7 @@ const halfLetter: PrintSpec = {
   inks: ["black"],
 };
 
-describe("pixel sizes from the spec (REFERENCE §5.1 worked values)", () => {
+describe("pixel sizes from the spec (pixels = inches x ppi, Haematologica 'Image resolution' advisor)", () => {
   it("half letter @300: 1650 x 2550 trim, 1725 x 2625 with 1/8 in bleed", () => {
     expect(pixelsFor(trimOf(halfLetter), 300)).toEqual({ widthPx: 1650, heightPx: 2550 });
     expect(pixelsFor(bleedBoxOf(halfLetter), 300)).toEqual({ widthPx: 1725, heightPx: 2625 });
@@ -46,7 +46,8 @@ describe("pixel sizes from the spec (REFERENCE §5.1 worked values)", () => {
       heightPx: 3508,
     });
     expect(meetsPpi(effectivePpi(2480, 210), 300)).toBe(true);
-    // REFERENCE §5.1: 2480 px across 8.5 in is 291.76 ppi and fails a 300 ppi check
+    // 2480 px across 8.5 in is 291.76 ppi and fails a 300 ppi check (ppi = pixels ÷ inches,
+    // Haematologica "Image resolution" advisor, submit.haematologica.org/image_analysis/advisor/image_resolution.html)
     expect(meetsPpi(effectivePpi(2480, inToMm(8.5)), 300)).toBe(false);
   });
 

@@ -26,7 +26,7 @@ describe("exact unit conversions", () => {
     expect(ptToMm(1)).toBeCloseTo(0.352777778, 9);
   });
 
-  it("bleeds in points (REFERENCE §2, derived)", () => {
+  it("bleeds in points (derived: 1 in = 25.4 mm, NBS Circular 572 Addendum; 1 pt = 1/72 in, ISO 32000-1 Table 30)", () => {
     expect(mmToPt(3)).toBeCloseTo(8.50394, 5);
     expect(mmToPt(5)).toBeCloseTo(14.17323, 5);
     expect(mmToPt(inToMm(0.125))).toBeCloseTo(9, 12); // 0.125 in = 9 pt exactly
@@ -48,7 +48,7 @@ describe("exact unit conversions", () => {
   it("effective ppi = pixels / printed inches", () => {
     // Haematologica image advisor: "900 pixels / 300ppi = 3 inches wide"
     expect(effectivePpi(900, inToMm(3))).toBeCloseTo(300, 9);
-    // REFERENCE §5.1 derived: 1200 px across 5 in = 240 ppi; 1748 px across 148 mm = 299.995 ppi
+    // Derived by the same rule: 1200 px across 5 in = 240 ppi; 1748 px across 148 mm = 299.995 ppi
     expect(effectivePpi(1200, inToMm(5))).toBeCloseTo(240, 9);
     expect(effectivePpi(1748, 148)).toBeCloseTo(299.995, 3);
     expect(effectivePpi(2480, inToMm(8.5))).toBeCloseTo(291.76, 2);
