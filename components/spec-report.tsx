@@ -1,4 +1,11 @@
-import type { Finding, Measured, Severity, SpecReport as Report } from "@/lib/print/check";
+import { FORMAT_NAMES } from "@/lib/print";
+import type {
+  ArtworkFormat,
+  Finding,
+  Measured,
+  Severity,
+  SpecReport as Report,
+} from "@/lib/print/check";
 import { VerdictBadge } from "@/components/verdict-badge";
 
 const SEVERITY = {
@@ -6,22 +13,6 @@ const SEVERITY = {
   warning: { label: "Should fix", className: "border-mustard bg-mustard-light/70" },
   note: { label: "Note", className: "border-ink/20 bg-paper-deep" },
 } as const satisfies Record<Severity, { label: string; className: string }>;
-
-const FORMAT_NAMES: Record<string, string> = {
-  png: "PNG",
-  jpeg: "JPEG",
-  tiff: "TIFF",
-  webp: "WebP",
-  pdf: "PDF",
-  gif: "GIF",
-  bmp: "BMP",
-  heif: "HEIF/HEIC",
-  psd: "Photoshop document",
-  svg: "SVG drawing",
-  zip: "ZIP archive",
-  unknown: "Not a recognised file type",
-  empty: "Empty file",
-};
 
 function bytesText(n: number): string {
   if (n < 1024) return `${n} bytes`;
@@ -32,7 +23,7 @@ function bytesText(n: number): string {
 /** The measured facts worth showing, as label/value pairs. */
 function measuredRows(format: string, m: Measured): [string, string][] {
   const rows: [string, string][] = [
-    ["File", `${FORMAT_NAMES[format] ?? format}, ${bytesText(m.byteLength)}`],
+    ["File", `${FORMAT_NAMES[format as ArtworkFormat] ?? format}, ${bytesText(m.byteLength)}`],
   ];
   if (m.widthPx && m.heightPx) rows.push(["Pixels", `${m.widthPx} x ${m.heightPx} px`]);
   if (m.effectivePpi) rows.push(["Resolution at print size", `${Math.round(m.effectivePpi)} ppi`]);

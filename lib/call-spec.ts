@@ -1,24 +1,14 @@
 /**
  * The print spec a contributor needs to make a piece, in plain words, drawn from the anthology's
- * spec columns: trim, bleed, size with bleed, safe margin, resolution, pixel size and colour mode.
- * Pure; shown on the studio call page and the public call page.
+ * spec (`specOf(anthology, { inks: call.allowedInks })`): trim, bleed, size with bleed, safe
+ * margin, resolution, pixel size and colour mode. Pure; shown on the studio call page and the
+ * public call page.
  */
-import type { PrintMethod } from "@/lib/domain";
 import { formatLength, mmText } from "@/lib/format";
-import { bleedBoxOf, pixelsFor } from "@/lib/print/spec";
+import { SUPPORTED_FORMATS_TEXT } from "@/lib/print/check/types";
 import { findPreset } from "@/lib/print/sizes";
+import { bleedBoxOf, pixelsFor, type PrintMethod, type PrintSpec } from "@/lib/print/spec";
 import { mmToIn, roundTo } from "@/lib/print/units";
-
-export interface CallSpecSource {
-  trimPreset: string;
-  trimWidthMm: number;
-  trimHeightMm: number;
-  bleedMm: number;
-  safeMarginMm: number;
-  minPpi: number;
-  printMethod: PrintMethod;
-  inks: string[];
-}
 
 export interface CallSpecSummary {
   rows: { key: string; label: string; value: string }[];
@@ -50,12 +40,9 @@ function sizeBothUnits(widthMm: number, heightMm: number, inchesFirst: boolean):
   return inchesFirst ? `${inches} (${mm})` : `${mm} (${inches})`;
 }
 
-/** The spec summary rows for an anthology; `allowedInks` narrows the inks to the call's. */
-export function callSpecSummary(
-  a: CallSpecSource,
-  allowedInks?: readonly string[],
-): CallSpecSummary {
-  const preset = findPreset(a.trimPreset);
+/** The spec summary rows; build the spec with the call's inks so the colour row names them. */
+export function callSpecSummary(a: PrintSpec): CallSpecSummary {
+  const preset = a.trimPreset ? findPreset(a.trimPreset) : undefined;
   const inchesFirst = Boolean(preset?.inches);
   const trimMm = `${mmText(a.trimWidthMm)} x ${mmText(a.trimHeightMm)} mm`;
   const presetName = preset
@@ -66,10 +53,9 @@ export function callSpecSummary(
     : preset
       ? `${presetName}, ${sizeBothUnits(a.trimWidthMm, a.trimHeightMm, false)}`
       : sizeBothUnits(a.trimWidthMm, a.trimHeightMm, false);
-  const withBleed = bleedBoxOf({ ...a });
+  const withBleed = bleedBoxOf(a);
   const { widthPx, heightPx } = pixelsFor(withBleed, a.minPpi);
-  const inks = allowedInks && allowedInks.length ? [...allowedInks] : a.inks;
-  const colourMode = colourModeText(a.printMethod, inks);
+  const colourMode = colourModeText(a.printMethod, a.inks);
   return {
     pixels: { widthPx, heightPx, ppi: a.minPpi },
     colourMode,
@@ -97,7 +83,7 @@ export function callSpecSummary(
         value: `${widthPx} x ${heightPx} px (page with bleed at ${a.minPpi} ppi)`,
       },
       { key: "colour", label: "Colour", value: colourMode },
-      { key: "files", label: "Files", value: "PNG, JPEG, TIFF or PDF, one file per page" },
+      { key: "files", label: "Files", value: `${SUPPORTED_FORMATS_TEXT}, one file per page` },
     ],
   };
 }

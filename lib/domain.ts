@@ -1,4 +1,6 @@
 /** Names of the states and kinds Quireline's records move through, with their plain-English labels. */
+// Relative, so db/schema.ts (read by drizzle-kit, which knows no "@/" paths) can import this file.
+import { PRINT_METHODS, type PrintMethod } from "./print/spec";
 
 export const ROLES = ["lead", "editor", "finisher", "contributor"] as const;
 export type Role = (typeof ROLES)[number];
@@ -64,8 +66,8 @@ export const BINDING_LABELS: Record<Binding, string> = {
 export const COVER_STOCKS = ["self", "separate"] as const;
 export type CoverStock = (typeof COVER_STOCKS)[number];
 
-export const PRINT_METHODS = ["duplicator", "laser-colour", "laser-black", "inkjet"] as const;
-export type PrintMethod = (typeof PRINT_METHODS)[number];
+// The print engine owns the list of print methods; the labels people read live here.
+export { PRINT_METHODS, type PrintMethod };
 export const PRINT_METHOD_LABELS: Record<PrintMethod, string> = {
   duplicator: "Stencil duplicator (one drum per ink)",
   "laser-colour": "Colour laser",

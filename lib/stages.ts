@@ -11,7 +11,7 @@ import {
   type PieceKind,
   type PrintMethod,
 } from "@/lib/domain";
-import { specProblems } from "@/lib/print/spec";
+import { specOf, specProblems } from "@/lib/print/spec";
 
 /** The dates of a call: UTC instants. */
 export interface CallWindow {
@@ -142,7 +142,7 @@ export function reviewStageMove(
           `The call allows ${unknown.join(", ")}, which the anthology does not print with (${facts.anthology.inks.join(", ")}).`,
         );
       if (!call.rightsAsked.trim()) review.problems.push("Say which rights you ask for.");
-      for (const problem of specProblems({ ...facts.anthology }))
+      for (const problem of specProblems(specOf(facts.anthology)))
         review.problems.push(`Print spec: ${problem}`);
       if (review.problems.length === 0 && call.opensAt.getTime() > now.getTime())
         review.cautions.push(

@@ -6,7 +6,7 @@
  */
 import { PDFDocument, rgb, StandardFonts, type PDFFont } from "pdf-lib";
 import sharp from "sharp";
-import { bleedBoxOf, pixelsFor, type PrintSpec } from "@/lib/print/spec";
+import { bleedBoxOf, pixelsFor } from "@/lib/print/spec";
 import { mmToIn, mmToPt, mmToPx } from "@/lib/print/units";
 
 export type TemplateFormat = "png" | "pdf";
@@ -58,7 +58,7 @@ export interface PngLayout {
 
 /** Pixel size and line positions of the PNG template. Size = ceil(trim plus bleed × ppi). */
 export function pngLayout(spec: TemplateSpec): PngLayout {
-  const size = bleedBoxOf(printSpec(spec));
+  const size = bleedBoxOf(spec);
   let ppi = spec.minPpi;
   let px = pixelsFor(size, ppi);
   if ((px.widthPx * px.heightPx) / 1e6 > MAX_TEMPLATE_MEGAPIXELS) {
@@ -96,7 +96,7 @@ export interface PdfBoxes {
 
 /** PDF boxes in points (1 pt = 1/72 in): the media is the page with bleed, the trim sits `bleed` in. */
 export function pdfBoxes(spec: TemplateSpec): PdfBoxes {
-  const size = bleedBoxOf(printSpec(spec));
+  const size = bleedBoxOf(spec);
   const b = mmToPt(spec.bleedMm);
   const s = mmToPt(spec.bleedMm + spec.safeMarginMm);
   return {
@@ -125,7 +125,7 @@ export function templateLegend(
     spec.inchesFirst
       ? `${Number(mmToIn(w).toFixed(3))} x ${Number(mmToIn(h).toFixed(3))} in`
       : `${Number(w.toFixed(2))} x ${Number(h.toFixed(2))} mm`;
-  const withBleed = bleedBoxOf(printSpec(spec));
+  const withBleed = bleedBoxOf(spec);
   const px = pixelsFor(withBleed, spec.minPpi);
   return {
     bleed: `BLEED ${length(spec.bleedMm)}: extend artwork to this edge`,
@@ -311,13 +311,9 @@ export function templateFileName(slug: string, spec: TemplateSpec, format: Templ
     const { widthPx, heightPx, ppi } = pngLayout(spec);
     return `${slug}-page-template-${widthPx}x${heightPx}px-${ppi}ppi.png`;
   }
-  const withBleed = bleedBoxOf(printSpec(spec));
+  const withBleed = bleedBoxOf(spec);
   const round = (n: number) => Number(n.toFixed(1));
   return `${slug}-page-template-${round(withBleed.widthMm)}x${round(withBleed.heightMm)}mm.pdf`;
-}
-
-function printSpec(spec: TemplateSpec): PrintSpec {
-  return { ...spec, printMethod: "laser-black", inks: [] };
 }
 
 function escapeXml(text: string): string {

@@ -3,15 +3,16 @@
  * millimetres, with the trim's top-left corner at (0, 0); components/spec-overlay.tsx draws it.
  */
 import type { Measured } from "@/lib/print/check";
+import { bleedBoxOf, safeAreaOf, type PrintSpec } from "@/lib/print/spec";
+import { ptToMm } from "@/lib/print/units";
 
 export type Rect = { x: number; y: number; width: number; height: number };
 
-export type OverlaySpec = {
-  trimWidthMm: number;
-  trimHeightMm: number;
-  bleedMm: number;
-  safeMarginMm: number;
-};
+/** The part of a print spec (built with `specOf`) the drawing needs. */
+export type OverlaySpec = Pick<
+  PrintSpec,
+  "trimWidthMm" | "trimHeightMm" | "bleedMm" | "safeMarginMm"
+>;
 
 export type OverlayLayout = {
   bleed: Rect;
@@ -25,7 +26,6 @@ export type OverlayLayout = {
   placement: "fills-bleed" | "fills-trim" | "covers-page" | "pdf-boxes" | "none";
 };
 
-const MM_PER_PT = 25.4 / 72;
 const near = (a: number, b: number, tol = 0.6) => Math.abs(a - b) <= tol;
 
 function union(a: Rect, b: Rect): Rect {
@@ -55,16 +55,13 @@ export function overlayLayout(
 ): OverlayLayout {
   const b = spec.bleedMm;
   const trim: Rect = { x: 0, y: 0, width: spec.trimWidthMm, height: spec.trimHeightMm };
-  const bleed: Rect = {
-    x: -b,
-    y: -b,
-    width: spec.trimWidthMm + 2 * b,
-    height: spec.trimHeightMm + 2 * b,
-  };
+  const bleedBox = bleedBoxOf(spec);
+  const bleed: Rect = { x: -b, y: -b, width: bleedBox.widthMm, height: bleedBox.heightMm };
   const s = spec.safeMarginMm;
+  const safeArea = safeAreaOf(spec);
   const safe: Rect | null =
-    s > 0 && 2 * s < Math.min(spec.trimWidthMm, spec.trimHeightMm)
-      ? { x: s, y: s, width: spec.trimWidthMm - 2 * s, height: spec.trimHeightMm - 2 * s }
+    s > 0 && safeArea.widthMm > 0 && safeArea.heightMm > 0
+      ? { x: s, y: s, width: safeArea.widthMm, height: safeArea.heightMm }
       : null;
   let image: Rect | null = null;
   let placement: OverlayLayout["placement"] = "none";
@@ -78,8 +75,8 @@ export function overlayLayout(
       const dx = (spec.trimWidthMm - t.widthMm) / 2;
       const dy = (spec.trimHeightMm - t.heightMm) / 2;
       image = {
-        x: dx + (crop.xPt - t.xPt) * MM_PER_PT,
-        y: dy + (t.yPt + t.heightPt - (crop.yPt + crop.heightPt)) * MM_PER_PT,
+        x: dx + ptToMm(crop.xPt - t.xPt),
+        y: dy + ptToMm(t.yPt + t.heightPt - (crop.yPt + crop.heightPt)),
         width: crop.widthMm,
         height: crop.heightMm,
       };

@@ -12,4 +12,9 @@ export * from "./creep";
 export * from "./passes";
 export * from "./costs";
 export type * from "./check/types";
-export { DEFAULT_MAX_PIXELS, SUPPORTED_FORMATS } from "./check/types";
+export {
+  DEFAULT_MAX_PIXELS,
+  FORMAT_NAMES,
+  SUPPORTED_FORMATS,
+  SUPPORTED_FORMATS_TEXT,
+} from "./check/types";

@@ -3,6 +3,7 @@
  * orientation helpers, the parent sheet a saddle-stitched booklet prints on, and n-up fitting
  * of a trim on a press sheet with bleed and a gripper margin.
  */
+import { bleedBoxOf } from "./spec";
 import { inToMm } from "./units";
 
 /** A width and height in millimetres, as seen when reading the page. */
@@ -162,11 +163,6 @@ export function foldInHalf(size: SizeMm): SizeMm {
   return withOrientation({ widthMm: long / 2, heightMm: short }, "portrait");
 }
 
-/** Size grown by a bleed on every side (BleedBox = TrimBox grown by the bleed). */
-export function withBleed(size: SizeMm, bleedMm: number): SizeMm {
-  return { widthMm: size.widthMm + 2 * bleedMm, heightMm: size.heightMm + 2 * bleedMm };
-}
-
 /** The flat sheet a saddle-stitched booklet prints on, and a named sheet it corresponds to. */
 export interface ParentSheet {
   /** The open spread: two pages side by side, landscape for a portrait trim. */
@@ -246,8 +242,9 @@ function gridFit(
 ): SheetFit {
   const margin = options.marginMm ?? 0;
   const b = options.bleedMm;
-  const pieceW = trim.widthMm + 2 * b;
-  const pieceH = trim.heightMm + 2 * b;
+  const piece = bleedBoxOf({ trimWidthMm: trim.widthMm, trimHeightMm: trim.heightMm, bleedMm: b });
+  const pieceW = piece.widthMm;
+  const pieceH = piece.heightMm;
   const usableW = sheet.widthMm - 2 * margin;
   const usableH = sheet.heightMm - options.gripperMm - margin;
   const eps = 1e-9;
@@ -283,7 +280,7 @@ function gridFit(
     rows,
     placed,
     pieceOrientation: orientationOf(trim),
-    piece: { widthMm: pieceW, heightMm: pieceH },
+    piece,
     trimOrigins,
     cuts: up > 0 ? cuts : [],
     wasteFraction: sheetArea > 0 ? 1 - (up * trim.widthMm * trim.heightMm) / sheetArea : 1,

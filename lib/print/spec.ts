@@ -1,43 +1,89 @@
 /** The print spec an anthology sets, and the sizes and pixel counts derived from it. */
 import { mmToPx } from "./units";
 import type { SizeMm } from "./sizes";
-import { withBleed } from "./sizes";
 
-/** How the booklet will be printed. Duplicator printing runs each sheet once per ink. */
-export type PrintMethod = "duplicator" | "laser-colour" | "laser-black" | "inkjet";
+/** How the booklet will be printed, the one list; lib/domain.ts re-exports it beside its labels. */
+export const PRINT_METHODS = ["duplicator", "laser-colour", "laser-black", "inkjet"] as const;
+/** Duplicator printing runs each sheet once per ink. */
+export type PrintMethod = (typeof PRINT_METHODS)[number];
 
-export const PRINT_METHODS: readonly PrintMethod[] = [
-  "duplicator",
-  "laser-colour",
-  "laser-black",
-  "inkjet",
-];
-
-/** What the database stores per anthology; lengths in millimetres. */
+/** The one shape of a print spec; lengths in millimetres. Build it from an anthology with `specOf`. */
 export interface PrintSpec {
+  /** The named trim the size came from ("a5", "half-letter"; "custom" for a size typed in), when known. */
+  trimPreset?: string;
   trimWidthMm: number;
   trimHeightMm: number;
   bleedMm: number;
   safeMarginMm: number;
   minPpi: number;
+  /** Pages one file should hold (1 for a page file); absent when any count will do. */
   pagesExpected?: number;
   printMethod: PrintMethod;
   /** Ink names in printing order, e.g. ["black", "fluorescent pink"]; empty for process colour. */
   inks: string[];
 }
 
+/** The anthology columns a spec is drawn from; a whole anthology row will do. */
+export interface SpecColumns {
+  trimPreset?: string | null;
+  trimWidthMm: number;
+  trimHeightMm: number;
+  bleedMm: number;
+  safeMarginMm: number;
+  minPpi: number;
+  printMethod: PrintMethod;
+  inks: readonly string[];
+}
+
+export interface SpecOptions {
+  /** Pages one file should hold, e.g. 1 for a piece's page file. */
+  pagesExpected?: number;
+  /** Narrows the inks (a piece's or a call's); an empty or missing list keeps the anthology's. */
+  inks?: readonly string[] | null;
+}
+
+/**
+ * The print spec of an anthology, from its columns: every caller that checks, draws or
+ * describes a spec builds it here, so the fields and the ink rule live in one place.
+ */
+export function specOf(anthology: SpecColumns, options: SpecOptions = {}): PrintSpec {
+  const inks = options.inks && options.inks.length > 0 ? options.inks : anthology.inks;
+  const spec: PrintSpec = {
+    trimWidthMm: anthology.trimWidthMm,
+    trimHeightMm: anthology.trimHeightMm,
+    bleedMm: anthology.bleedMm,
+    safeMarginMm: anthology.safeMarginMm,
+    minPpi: anthology.minPpi,
+    printMethod: anthology.printMethod,
+    inks: [...inks],
+  };
+  if (anthology.trimPreset) spec.trimPreset = anthology.trimPreset;
+  if (options.pagesExpected !== undefined) spec.pagesExpected = options.pagesExpected;
+  return spec;
+}
+
 /** The finished page size. */
-export function trimOf(spec: PrintSpec): SizeMm {
+export function trimOf(spec: Pick<PrintSpec, "trimWidthMm" | "trimHeightMm">): SizeMm {
   return { widthMm: spec.trimWidthMm, heightMm: spec.trimHeightMm };
 }
 
-/** The page size including bleed on every side. */
-export function bleedBoxOf(spec: PrintSpec): SizeMm {
-  return withBleed(trimOf(spec), spec.bleedMm);
+/**
+ * The page size including bleed on every side (BleedBox = TrimBox grown by the bleed,
+ * ISO 32000-1:2008 §14.11.2): the one place trim plus bleed is computed.
+ */
+export function bleedBoxOf(
+  spec: Pick<PrintSpec, "trimWidthMm" | "trimHeightMm" | "bleedMm">,
+): SizeMm {
+  return {
+    widthMm: spec.trimWidthMm + 2 * spec.bleedMm,
+    heightMm: spec.trimHeightMm + 2 * spec.bleedMm,
+  };
 }
 
 /** The area inside the safe margin, where text and faces belong. */
-export function safeAreaOf(spec: PrintSpec): SizeMm {
+export function safeAreaOf(
+  spec: Pick<PrintSpec, "trimWidthMm" | "trimHeightMm" | "safeMarginMm">,
+): SizeMm {
   return {
     widthMm: spec.trimWidthMm - 2 * spec.safeMarginMm,
     heightMm: spec.trimHeightMm - 2 * spec.safeMarginMm,

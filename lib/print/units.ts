@@ -9,8 +9,10 @@
 export const MM_PER_INCH = 25.4;
 /** PDF user-space units (points) in one inch, exact. */
 export const POINTS_PER_INCH = 72;
-/** Metres in one inch, exact; PNG 1.2 states it for pHYs conversions. */
-export const METRES_PER_INCH = 0.0254;
+/** Metres in one inch, exact (0.0254; PNG 1.2 states it for pHYs conversions). */
+export const METRES_PER_INCH = MM_PER_INCH / 1000;
+/** Centimetres in one inch, exact (2.54). */
+export const CM_PER_INCH = MM_PER_INCH / 10;
 
 /** Inches to millimetres. */
 export function inToMm(inches: number): number {
@@ -44,7 +46,7 @@ export function ppiToPpm(ppi: number): number {
 
 /** Pixels per centimetre (JFIF unit 2, TIFF unit 3) to pixels per inch. */
 export function ppcmToPpi(pixelsPerCm: number): number {
-  return pixelsPerCm * 2.54;
+  return pixelsPerCm * CM_PER_INCH;
 }
 
 /** Pixels needed to cover a length at a resolution, unrounded. */

@@ -16,7 +16,7 @@ import { Refusal } from "@/lib/refusal";
 import { env } from "@/lib/env";
 import { simpleHtml } from "@/server/mail";
 import { checkArtwork, type SpecReport } from "@/lib/print/check";
-import type { PrintSpec } from "@/lib/print/spec";
+import { specOf, type PrintSpec } from "@/lib/print/spec";
 import { mayUploadFiles, statusAfterNewFile } from "@/lib/pieces/status";
 import { isPieceVerdict, PIECE_VERDICT_LABELS, type PieceVerdict } from "@/lib/pieces/verdict";
 import { isCallOpen } from "@/lib/stages";
@@ -30,16 +30,7 @@ const fv = schema.fileVersions;
 
 /** The spec one page file is checked against: the anthology's, one page per file, the piece's inks. */
 export function specForPiece(anthology: Anthology, piece: Pick<Piece, "inks">): PrintSpec {
-  return {
-    trimWidthMm: anthology.trimWidthMm,
-    trimHeightMm: anthology.trimHeightMm,
-    bleedMm: anthology.bleedMm,
-    safeMarginMm: anthology.safeMarginMm,
-    minPpi: anthology.minPpi,
-    pagesExpected: 1,
-    printMethod: anthology.printMethod,
-    inks: piece.inks.length > 0 ? piece.inks : anthology.inks,
-  };
+  return specOf(anthology, { pagesExpected: 1, inks: piece.inks });
 }
 
 /** Whether this piece's files may change now: the call is open, or an editor asked for a fix. */

@@ -1,9 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { callSpecSummary, colourModeText } from "@/lib/call-spec";
 import { copiesText, feeText, salesShareText } from "@/lib/call-terms";
+import { specOf } from "@/lib/print/spec";
 import { inToMm } from "@/lib/print/units";
 
-const almanac = {
+// The anthology's spec columns as the database stores them (an anthology row has more).
+const almanacRow = {
+  id: 7,
+  title: "Low Tide Almanac",
   trimPreset: "half-letter",
   trimWidthMm: inToMm(5.5),
   trimHeightMm: inToMm(8.5),
@@ -12,7 +16,9 @@ const almanac = {
   minPpi: 300,
   printMethod: "duplicator" as const,
   inks: ["black", "teal"],
+  inksPerPass: 1,
 };
+const almanac = specOf(almanacRow);
 
 describe("the spec summary of a call", () => {
   it("gives half letter + 0.125 in bleed as 5.75 x 8.75 in and 1725 x 2625 px at 300 ppi (trim + 2 x bleed; pixels = inches x ppi, Haematologica 'Image resolution' advisor)", () => {
@@ -25,18 +31,22 @@ describe("the spec summary of a call", () => {
     expect(row("colour")).toBe(
       "One greyscale file per ink (black, teal), dark where that ink prints",
     );
+    // Every format the spec check measures, named as the checker names them.
+    expect(row("files")).toBe("PNG, JPEG, TIFF, WebP or PDF, one file per page");
   });
 
   it("gives A5 + 3 mm as 154 x 216 mm (ISO 216 A5 = 148 x 210 mm, plus 3 mm each side) and rounds pixels up", () => {
-    const summary = callSpecSummary({
-      ...almanac,
-      trimPreset: "a5",
-      trimWidthMm: 148,
-      trimHeightMm: 210,
-      bleedMm: 3,
-      printMethod: "laser-black",
-      inks: ["black"],
-    });
+    const summary = callSpecSummary(
+      specOf({
+        ...almanacRow,
+        trimPreset: "a5",
+        trimWidthMm: 148,
+        trimHeightMm: 210,
+        bleedMm: 3,
+        printMethod: "laser-black",
+        inks: ["black"],
+      }),
+    );
     expect(summary.rows.find((r) => r.key === "with-bleed")?.value).toBe(
       "154 x 216 mm (6.063 x 8.504 in)",
     );
@@ -47,7 +57,8 @@ describe("the spec summary of a call", () => {
     expect(colourModeText("duplicator", ["black"])).toBe(
       "Greyscale, dark where the black ink prints",
     );
-    expect(callSpecSummary(almanac, ["teal"]).colourMode).toBe(
+    // The call narrows the inks: its allowed inks replace the anthology's.
+    expect(callSpecSummary(specOf(almanacRow, { inks: ["teal"] })).colourMode).toBe(
       "Greyscale, dark where the teal ink prints",
     );
     expect(colourModeText("laser-black", [])).toMatch(/^Greyscale/);

@@ -3,7 +3,7 @@
  * page turned 90°, or neither; the effective ppi at that size; and lengths written the way the
  * anthology's spec is written (inches for inch trims, millimetres otherwise).
  */
-import { mmToIn, roundTo } from "../units";
+import { mmToIn, pxToMm, roundTo } from "../units";
 import type { SizeMm } from "../sizes";
 import { bleedBoxOf, trimOf, type PrintSpec } from "../spec";
 import type { SizeMatch } from "./types";
@@ -22,12 +22,12 @@ export interface SizeVerdict {
 
 function coverFit(widthPx: number, heightPx: number, box: SizeMm) {
   const ppi = Math.min(widthPx / mmToIn(box.widthMm), heightPx / mmToIn(box.heightMm));
-  const printedW = (widthPx / ppi) * 25.4;
-  const printedH = (heightPx / ppi) * 25.4;
+  const printedW = pxToMm(widthPx, ppi);
+  const printedH = pxToMm(heightPx, ppi);
   const excessWidthMm = Math.max(0, printedW - box.widthMm);
   const excessHeightMm = Math.max(0, printedH - box.heightMm);
   // Half a millimetre, or the rounding of a pixel and a half, whichever is larger.
-  const toleranceMm = Math.max(0.5, (1.5 / ppi) * 25.4);
+  const toleranceMm = Math.max(0.5, pxToMm(1.5, ppi));
   return {
     ppi,
     excessWidthMm,

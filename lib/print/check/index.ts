@@ -11,6 +11,7 @@ import { formatFromFilename, formatFromMimeType, formatName, sniffFormat } from 
 import {
   DEFAULT_MAX_PIXELS,
   SUPPORTED_FORMATS,
+  SUPPORTED_FORMATS_TEXT,
   type ArtworkFormat,
   type CheckOptions,
   type Finding,
@@ -57,7 +58,7 @@ function triage(bytes: Uint8Array, options: CheckOptions): Triage {
       severity: "blocker",
       message: claimed
         ? `The file is named as ${formatName(claimed)}, but its contents are ${what}.`
-        : `The file is ${what}; artwork must be PNG, JPEG, TIFF, WebP or PDF.`,
+        : `The file is ${what}; artwork must be ${SUPPORTED_FORMATS_TEXT}.`,
       fix: "Export the artwork as PNG, TIFF or PDF (or JPEG at high quality) and upload that.",
     });
     return { format, declaredFormat, findings, stop: true };

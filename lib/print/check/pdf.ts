@@ -6,7 +6,7 @@
  */
 import { PDFDocument, PDFName, PDFNumber, type PDFPage } from "pdf-lib";
 import { ptToMm } from "../units";
-import type { PrintSpec } from "../spec";
+import { bleedBoxOf, trimOf, type PrintSpec } from "../spec";
 import { lengthText, sizeText, specUsesInches } from "./geometry";
 import { pagesText } from "./report";
 import type { Finding, Measured, PdfBox, PdfPageMeasure } from "./types";
@@ -119,11 +119,8 @@ function pageFindings(
     turned
       ? { widthMm: b.heightMm, heightMm: b.widthMm }
       : { widthMm: b.widthMm, heightMm: b.heightMm };
-  const trim = { widthMm: spec.trimWidthMm, heightMm: spec.trimHeightMm };
-  const withBleed = {
-    widthMm: trim.widthMm + 2 * spec.bleedMm,
-    heightMm: trim.heightMm + 2 * spec.bleedMm,
-  };
+  const trim = trimOf(spec);
+  const withBleed = bleedBoxOf(spec);
   const matches = (
     s: { widthMm: number; heightMm: number },
     t: { widthMm: number; heightMm: number },

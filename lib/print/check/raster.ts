@@ -4,7 +4,7 @@
  * for the edge analysis, transparency and a truncation check.
  */
 import sharp, { type Metadata, type OutputInfo } from "sharp";
-import { pixelsFor, type PrintSpec } from "../spec";
+import { bleedBoxOf, pixelsFor, type PrintSpec } from "../spec";
 import { roundTo } from "../units";
 import { analyseEdges } from "./edges";
 import { readDeclaredDensity } from "./density";
@@ -206,21 +206,9 @@ function errorText(error: unknown): string {
 
 /** The pixel size a fix asks for: trim + bleed at a resolution. */
 function sizeFix(spec: PrintSpec, ppi: number, lead: string): string {
-  const inches = specUsesInches(spec);
-  const px = pixelsFor(
-    {
-      widthMm: spec.trimWidthMm + 2 * spec.bleedMm,
-      heightMm: spec.trimHeightMm + 2 * spec.bleedMm,
-    },
-    ppi,
-  );
-  const size = sizeText(
-    {
-      widthMm: spec.trimWidthMm + 2 * spec.bleedMm,
-      heightMm: spec.trimHeightMm + 2 * spec.bleedMm,
-    },
-    inches,
-  );
+  const withBleed = bleedBoxOf(spec);
+  const px = pixelsFor(withBleed, ppi);
+  const size = sizeText(withBleed, specUsesInches(spec));
   return `${lead} ${px.widthPx} x ${px.heightPx} px (${size} with bleed) at ${ppi} ppi.`;
 }
 
@@ -236,20 +224,9 @@ function sizeFindings(
 ): Finding[] {
   const inches = specUsesInches(spec);
   const ppi = targetPpi(spec, v.effectivePpi);
-  const bleedPx = pixelsFor(
-    {
-      widthMm: spec.trimWidthMm + 2 * spec.bleedMm,
-      heightMm: spec.trimHeightMm + 2 * spec.bleedMm,
-    },
-    ppi,
-  );
-  const pageWithBleed = sizeText(
-    {
-      widthMm: spec.trimWidthMm + 2 * spec.bleedMm,
-      heightMm: spec.trimHeightMm + 2 * spec.bleedMm,
-    },
-    inches,
-  );
+  const withBleed = bleedBoxOf(spec);
+  const bleedPx = pixelsFor(withBleed, ppi);
+  const pageWithBleed = sizeText(withBleed, inches);
   if (v.match === "trim-only")
     return [
       {
@@ -281,7 +258,7 @@ function sizeFindings(
         severity: perSide <= spec.safeMarginMm ? "warning" : "blocker",
         message:
           `Your image is ${widthPx} x ${heightPx} px, proportions 1:${ratio(widthPx, heightPx)}; the page with bleed is ${pageWithBleed}, ` +
-          `proportions 1:${ratio(spec.trimWidthMm + 2 * spec.bleedMm, spec.trimHeightMm + 2 * spec.bleedMm)}. ` +
+          `proportions 1:${ratio(withBleed.widthMm, withBleed.heightMm)}. ` +
           `Scaled to cover the page, ${lengthText(excess, inches)} of its ${axis} would be cut off (${lengthText(perSide, inches)} on each side).`,
         fix: `Crop or extend the artwork to the page's proportions: ${bleedPx.widthPx} x ${bleedPx.heightPx} px at ${ppi} ppi.`,
       },
@@ -433,13 +410,7 @@ function edgeFindings(
   const inches = specUsesInches(spec);
   const out: Finding[] = [];
   const ppi = targetPpi(spec, v.effectivePpi);
-  const bleedPx = pixelsFor(
-    {
-      widthMm: spec.trimWidthMm + 2 * spec.bleedMm,
-      heightMm: spec.trimHeightMm + 2 * spec.bleedMm,
-    },
-    ppi,
-  );
+  const bleedPx = pixelsFor(bleedBoxOf(spec), ppi);
   if (v.match === "trim-only") {
     const touching = sides.filter((s) => s.outerInk >= REACHES).map((s) => s.side);
     out.push(

@@ -1,5 +1,5 @@
 /** File type from magic bytes, and from a declared name or media type, so the two can be compared. */
-import type { ArtworkFormat } from "./types";
+import { FORMAT_NAMES, type ArtworkFormat } from "./types";
 
 function startsWith(bytes: Uint8Array, signature: readonly number[], offset = 0): boolean {
   if (bytes.length < offset + signature.length) return false;
@@ -92,20 +92,5 @@ export function formatFromMimeType(mimeType: string): ArtworkFormat | undefined 
 
 /** Upper-case name of a format for messages. */
 export function formatName(format: ArtworkFormat): string {
-  const names: Record<ArtworkFormat, string> = {
-    png: "PNG",
-    jpeg: "JPEG",
-    tiff: "TIFF",
-    webp: "WebP",
-    pdf: "PDF",
-    gif: "GIF",
-    bmp: "BMP",
-    heif: "HEIF/HEIC/AVIF",
-    psd: "Photoshop (PSD)",
-    svg: "SVG",
-    zip: "ZIP archive",
-    unknown: "unrecognised",
-    empty: "empty",
-  };
-  return names[format];
+  return FORMAT_NAMES[format];
 }

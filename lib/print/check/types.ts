@@ -19,8 +19,29 @@ export type ArtworkFormat =
   | "unknown"
   | "empty";
 
+/** The one list of format names people read, in messages and on screens. */
+export const FORMAT_NAMES: Record<ArtworkFormat, string> = {
+  png: "PNG",
+  jpeg: "JPEG",
+  tiff: "TIFF",
+  webp: "WebP",
+  pdf: "PDF",
+  gif: "GIF",
+  bmp: "BMP",
+  heif: "HEIF/HEIC/AVIF",
+  psd: "Photoshop (PSD)",
+  svg: "SVG",
+  zip: "ZIP archive",
+  unknown: "Not a recognised file type",
+  empty: "Empty file",
+};
+
 /** Formats the checker can measure. */
 export const SUPPORTED_FORMATS: readonly ArtworkFormat[] = ["png", "jpeg", "tiff", "webp", "pdf"];
+
+/** "PNG, JPEG, TIFF, WebP or PDF": the formats the checker measures, by name. */
+const supportedNames = SUPPORTED_FORMATS.map((f) => FORMAT_NAMES[f]);
+export const SUPPORTED_FORMATS_TEXT = `${supportedNames.slice(0, -1).join(", ")} or ${supportedNames[supportedNames.length - 1]}`;
 
 export interface Finding {
   /** Stable kebab-case code the interface and tests rely on. */

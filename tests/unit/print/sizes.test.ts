@@ -10,9 +10,9 @@ import {
   parentSheetFor,
   rotateSize,
   TRIM_PRESETS,
-  withBleed,
   withOrientation,
 } from "@/lib/print/sizes";
+import { bleedBoxOf } from "@/lib/print/spec";
 import { inToMm, mmToPt } from "@/lib/print/units";
 
 const preset = (id: string) => {
@@ -160,8 +160,17 @@ describe("orientation", () => {
   it("bleed box = trim grown by the bleed on every side", () => {
     // Derived (the BleedBox is the TrimBox grown by the bleed, ISO 32000-1:2008 Table 30):
     // A5 + 3 mm → 154 x 216 mm; half letter + 0.125 in → 5.75 x 8.75 in
-    expect(withBleed(preset("a5"), 3)).toEqual({ widthMm: 154, heightMm: 216 });
-    const hl = withBleed(preset("half-letter"), inToMm(0.125));
+    const a5 = preset("a5");
+    expect(bleedBoxOf({ trimWidthMm: a5.widthMm, trimHeightMm: a5.heightMm, bleedMm: 3 })).toEqual({
+      widthMm: 154,
+      heightMm: 216,
+    });
+    const halfLetter = preset("half-letter");
+    const hl = bleedBoxOf({
+      trimWidthMm: halfLetter.widthMm,
+      trimHeightMm: halfLetter.heightMm,
+      bleedMm: inToMm(0.125),
+    });
     expect(hl.widthMm).toBeCloseTo(inToMm(5.75), 9);
     expect(hl.heightMm).toBeCloseTo(inToMm(8.75), 9);
   });

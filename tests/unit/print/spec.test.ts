@@ -5,11 +5,14 @@ import * as checkApi from "@/lib/print/check";
 import {
   bleedBoxOf,
   pixelsFor,
+  PRINT_METHODS,
   safeAreaOf,
+  specOf,
   specProblems,
   trimOf,
   type PrintSpec,
 } from "@/lib/print/spec";
+import { PRINT_METHODS as DOMAIN_PRINT_METHODS } from "@/lib/domain";
 import { effectivePpi, inToMm } from "@/lib/print/units";
 
 const halfLetter: PrintSpec = {
@@ -72,6 +75,65 @@ describe("spec sanity", () => {
     expect(specProblems({ ...halfLetter, safeMarginMm: 80 })).toContain(
       "The safe margins leave no room on the page.",
     );
+  });
+});
+
+describe("specOf: the one spec shape, from an anthology's columns", () => {
+  // An anthology row as the database returns it: spec columns among many others.
+  const row = {
+    id: 12,
+    slug: "low-tide-almanac",
+    title: "Low Tide Almanac",
+    stage: "call-open",
+    trimPreset: "half-letter",
+    trimWidthMm: inToMm(5.5),
+    trimHeightMm: inToMm(8.5),
+    bleedMm: inToMm(0.125),
+    safeMarginMm: inToMm(0.25),
+    binding: "saddle-stitch",
+    pageCountTarget: 24,
+    minPpi: 300,
+    printMethod: "duplicator" as const,
+    inks: ["black", "teal"],
+    inksPerPass: 1,
+    paperCaliperMm: 0.1,
+  };
+
+  it("copies the spec columns and nothing else", () => {
+    expect(specOf(row)).toEqual({
+      trimPreset: "half-letter",
+      trimWidthMm: inToMm(5.5),
+      trimHeightMm: inToMm(8.5),
+      bleedMm: inToMm(0.125),
+      safeMarginMm: inToMm(0.25),
+      minPpi: 300,
+      printMethod: "duplicator",
+      inks: ["black", "teal"],
+    });
+  });
+
+  it("narrows the inks to a piece's or a call's, keeping the anthology's when none are named", () => {
+    expect(specOf(row, { inks: ["teal"] }).inks).toEqual(["teal"]);
+    expect(specOf(row, { inks: [] }).inks).toEqual(["black", "teal"]);
+    expect(specOf(row, { inks: null }).inks).toEqual(["black", "teal"]);
+    // A copy: changing the spec's inks leaves the row alone.
+    specOf(row).inks.push("red");
+    expect(row.inks).toEqual(["black", "teal"]);
+  });
+
+  it("a page file holds one page", () => {
+    expect(specOf(row, { pagesExpected: 1 }).pagesExpected).toBe(1);
+    expect(specOf(row)).not.toHaveProperty("pagesExpected");
+  });
+
+  it("gives the same bleed box and pixel size as the worked half-letter values", () => {
+    expect(pixelsFor(bleedBoxOf(specOf(row)), 300)).toEqual({ widthPx: 1725, heightPx: 2625 });
+  });
+});
+
+describe("print methods are listed once", () => {
+  it("lib/domain re-exports the engine's list", () => {
+    expect(DOMAIN_PRINT_METHODS).toBe(PRINT_METHODS);
   });
 });
 

@@ -7,6 +7,7 @@ import { linkButtonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { findPublishedCall, toCallRecord } from "@/db/queries/open-call";
 import { callSpecSummary } from "@/lib/call-spec";
+import { specOf } from "@/lib/print/spec";
 import { copiesText, feeText, salesShareText } from "@/lib/call-terms";
 import { callPhase, kindsText } from "@/lib/stages";
 import { formatInZone } from "@/lib/time-zones";
@@ -156,7 +157,7 @@ export default async function PublicCallPage({ params }: Props) {
         <aside>
           <CallSpecSummaryPanel
             slug={anthology.slug}
-            spec={callSpecSummary(anthology, call.allowedInks)}
+            spec={callSpecSummary(specOf(anthology, { inks: call.allowedInks }))}
           />
         </aside>
       </div>

@@ -9,7 +9,7 @@ import { findPublishedCall } from "@/db/queries/open-call";
 import { callRulesOf, countActivePieces, submitRefusal } from "@/db/queries/submissions";
 import { currentUser } from "@/server/auth/guard";
 import { formatLength, formatTrim } from "@/lib/format";
-import { pixelsFor } from "@/lib/print/spec";
+import { bleedBoxOf, pixelsFor, specOf } from "@/lib/print/spec";
 import { callPhase, kindsText } from "@/lib/stages";
 import { formatInZone } from "@/lib/time-zones";
 import { PieceForm } from "./_components/piece-form";
@@ -34,13 +34,7 @@ export default async function SubmitPage({ params }: Props) {
   const active = await countActivePieces(anthology.id, user.id);
   const refusal = phase === "open" ? submitRefusal(role, active, call) : null;
   const myPieces = `/studio/${anthology.slug}/my-pieces`;
-  const px = pixelsFor(
-    {
-      widthMm: anthology.trimWidthMm + 2 * anthology.bleedMm,
-      heightMm: anthology.trimHeightMm + 2 * anthology.bleedMm,
-    },
-    anthology.minPpi,
-  );
+  const px = pixelsFor(bleedBoxOf(specOf(anthology)), anthology.minPpi);
 
   return (
     <div className="flex flex-col gap-6">

@@ -6,6 +6,7 @@ import { requireAnthologyAccess } from "@/server/auth/guard";
 import { can } from "@/lib/auth/policy";
 import { callSpecSummary } from "@/lib/call-spec";
 import { env } from "@/lib/env";
+import { specOf } from "@/lib/print/spec";
 import { callPhase, nextStage, reviewStageMove } from "@/lib/stages";
 import { allTimeZones, formatInZone } from "@/lib/time-zones";
 import { callInputFromRecord, newCallDefaults } from "@/lib/validations/call";
@@ -99,7 +100,7 @@ export default async function CallPage({ params }: { params: Promise<{ slug: str
         <aside className="flex flex-col gap-4">
           <CallSpecSummaryPanel
             slug={anthology.slug}
-            spec={callSpecSummary(anthology, record?.allowedInks)}
+            spec={callSpecSummary(specOf(anthology, { inks: record?.allowedInks }))}
           />
           <p className="text-xs text-ink-faint">
             The spec comes from the anthology&rsquo;s print settings. Templates for a call that is

@@ -2,6 +2,7 @@ import { findCall, saveCall, toCallRecord, type CallRow } from "@/db/queries/ope
 import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { can } from "@/lib/auth/policy";
 import { callSpecSummary } from "@/lib/call-spec";
+import { specOf } from "@/lib/print/spec";
 import { callPhase } from "@/lib/stages";
 import {
   callInputFromRecord,
@@ -40,7 +41,7 @@ export const GET = apiRoute(async (_request, { params }: Context) => {
     canEditTerms: can(role, "call:edit-terms"),
     currency: anthology.currency,
     publicPath: `/calls/${anthology.slug}`,
-    spec: callSpecSummary(anthology, row?.allowedInks),
+    spec: callSpecSummary(specOf(anthology, { inks: row?.allowedInks })),
   } satisfies CallAnswer);
 });
 

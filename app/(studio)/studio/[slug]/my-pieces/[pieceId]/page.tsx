@@ -15,6 +15,7 @@ import { requireAnthologyAccess } from "@/server/auth/guard";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { canMove } from "@/lib/pieces/status";
+import { specOf } from "@/lib/print/spec";
 import { uploadsAllowed, uploadsClosedReason } from "@/server/submissions/ingest";
 import { AltTextEditor } from "./_components/alt-text-editor";
 import { PageUpload } from "./_components/page-upload";
@@ -52,12 +53,7 @@ export default async function MyPiecePage({ params }: Props) {
   const { piece, pages, events } = detail;
   const call = await findCall(anthology.id);
   const open = uploadsAllowed(piece.status, call, anthology);
-  const spec = {
-    trimWidthMm: anthology.trimWidthMm,
-    trimHeightMm: anthology.trimHeightMm,
-    bleedMm: anthology.bleedMm,
-    safeMarginMm: anthology.safeMarginMm,
-  };
+  const spec = specOf(anthology);
   const maxMb = env().MAX_UPLOAD_MB;
   const missing = pages.filter((p) => p.currentVersionId === null).length;
 

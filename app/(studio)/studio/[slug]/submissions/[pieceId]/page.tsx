@@ -8,6 +8,7 @@ import { getPieceForReview, type ReviewVersion } from "@/db/queries/review";
 import { requireAnthologyAccess } from "@/server/auth/guard";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS } from "@/lib/domain";
 import type { OverlaySpec } from "@/lib/pieces/overlay";
+import { specOf } from "@/lib/print/spec";
 import { editorMovesFrom } from "@/lib/pieces/status";
 import type { SpecReport as Report } from "@/lib/print/check";
 import { EditorNotes } from "./_components/editor-notes";
@@ -43,12 +44,7 @@ export default async function SubmissionPage({
   const detail = Number.isSafeInteger(id) ? await getPieceForReview(anthology.id, id) : undefined;
   if (!detail) notFound();
   const { piece, contributor, pages, events } = detail;
-  const spec: OverlaySpec = {
-    trimWidthMm: anthology.trimWidthMm,
-    trimHeightMm: anthology.trimHeightMm,
-    bleedMm: anthology.bleedMm,
-    safeMarginMm: anthology.safeMarginMm,
-  };
+  const spec = specOf(anthology);
   const facts: [string, string][] = [
     ["Kind", PIECE_KIND_LABELS[piece.kind]],
     ["Pages", String(piece.pageCount)],

@@ -4,6 +4,7 @@ import { findCall } from "@/db/queries/open-call";
 import { apiRoute, currentUserMay, HttpError, readQuery } from "@/server/api";
 import { colourModeText } from "@/lib/call-spec";
 import { findPreset } from "@/lib/print/sizes";
+import { specOf } from "@/lib/print/spec";
 import { callPhase } from "@/lib/stages";
 import {
   renderTemplatePdf,
@@ -31,17 +32,11 @@ export const GET = apiRoute(async (request, { params }: { params: Promise<{ slug
   const published =
     callPhase(call?.publishedAt ? call : null, anthology.stage, new Date()) !== "unpublished";
   if (!published && !(await currentUserMay(anthology.id, "anthology:view"))) throw notHere;
+  const printSpec = specOf(anthology, { inks: call?.allowedInks });
   const spec: TemplateSpec = {
-    trimWidthMm: anthology.trimWidthMm,
-    trimHeightMm: anthology.trimHeightMm,
-    bleedMm: anthology.bleedMm,
-    safeMarginMm: anthology.safeMarginMm,
-    minPpi: anthology.minPpi,
+    ...printSpec,
     title: anthology.title,
-    colourMode: colourModeText(
-      anthology.printMethod,
-      call?.allowedInks.length ? call.allowedInks : anthology.inks,
-    ),
+    colourMode: colourModeText(printSpec.printMethod, printSpec.inks),
     inchesFirst: Boolean(findPreset(anthology.trimPreset)?.inches),
   };
   const bytes = format === "png" ? await renderTemplatePng(spec) : await renderTemplatePdf(spec);
