@@ -8,7 +8,8 @@ import { db, schema } from "@/db";
 import { bumpSessionVersion, sessionVersionOf } from "@/db/queries/users";
 import { verifyPassword } from "@/server/auth/password";
 import { env } from "@/lib/env";
-import { sendMail, simpleHtml } from "@/server/mail";
+import { signInLinkMail } from "@/lib/mail/templates/sign-in-link";
+import { sendMail } from "@/server/mail";
 import { signInSchema } from "@/lib/validations/account";
 
 declare module "next-auth" {
@@ -65,18 +66,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
       from: env().MAIL_FROM,
       maxAge: 60 * 60,
       async sendVerificationRequest({ identifier, url }) {
-        await sendMail({
-          to: identifier,
-          subject: "Your Quireline sign-in link",
-          text: `Open this link to sign in to Quireline:\n\n${url}\n\nIt works once and expires in an hour. If you did not ask for it, ignore this message.`,
-          html: simpleHtml(
-            [
-              "Open the link below to sign in to Quireline. It works once and expires in an hour.",
-              "If you did not ask for it, ignore this message.",
-            ],
-            { href: url, label: "Sign in to Quireline" },
-          ),
-        });
+        await sendMail({ to: identifier, ...signInLinkMail(url) });
       },
     }),
   ],

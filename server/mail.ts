@@ -1,12 +1,19 @@
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
+import { claimMailLog, finishMailLog } from "@/db/queries/mail-log";
 import { env } from "@/lib/env";
+import type { Mail } from "@/lib/mail/compose";
+
+/**
+ * The one module that sends mail: the SMTP transport (the local sink in development and tests),
+ * logged sending with dedupe, and absolute links into the app. Templates live in lib/mail.
+ */
 
 export type OutgoingMail = { to: string; subject: string; text: string; html?: string };
 
 let transport: Transporter | undefined;
 
-/** The SMTP transport, configured from the environment (the local sink in development and tests). */
+/** The SMTP transport, configured from the environment. */
 export function mailTransport(): Transporter {
   const { SMTP_HOST, SMTP_PORT, SMTP_USER, SMTP_PASSWORD } = env();
   transport ??= nodemailer.createTransport({
@@ -26,16 +33,44 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
   if (failed.length > 0) throw new Error(`The mail server refused ${failed.join(", ")}`);
 }
 
-/** Escapes text for the small HTML bodies Quireline writes. */
-export function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+/** An absolute link into the app, e.g. appUrl("/studio/low-tide-almanac"). */
+export function appUrl(path: string): string {
+  return `${env().AUTH_URL.replace(/\/$/, "")}${path.startsWith("/") ? path : `/${path}`}`;
 }
 
-/** A plain, readable HTML body: paragraphs and one optional button-style link. */
-export function simpleHtml(paragraphs: string[], link?: { href: string; label: string }): string {
-  const body = paragraphs.map((p) => `<p style="margin:0 0 12px">${escapeHtml(p)}</p>`).join("");
-  const button = link
-    ? `<p><a href="${escapeHtml(link.href)}" style="background:#1f3b2d;color:#fdf8ee;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(link.label)}</a></p>`
-    : "";
-  return `<div style="font-family:system-ui,sans-serif;color:#1d1b16;max-width:560px">${body}${button}<p style="color:#6b6457;font-size:12px">Quireline</p></div>`;
+export type LoggedMail = {
+  anthologyId?: number | null;
+  pieceId?: number | null;
+  kind: string;
+  to: string;
+  /** A mail that must go out once only carries a key; a second send with it is skipped. */
+  dedupeKey?: string;
+};
+
+/**
+ * Sends a mail and writes it to the e-mail log. With a dedupe key the log row is claimed first
+ * (an insert under the unique key), and only the sender that claimed it sends, so two racing
+ * sends of the same notice mail it once. A failed send releases the key for a later retry.
+ */
+export async function sendLoggedMail(
+  log: LoggedMail,
+  mail: Mail,
+): Promise<{ sent: boolean; duplicate: boolean }> {
+  const claim = await claimMailLog({
+    anthologyId: log.anthologyId ?? null,
+    pieceId: log.pieceId ?? null,
+    toEmail: log.to,
+    subject: mail.subject,
+    kind: log.kind,
+    dedupeKey: log.dedupeKey ?? null,
+  });
+  if (claim === "duplicate") return { sent: false, duplicate: true };
+  try {
+    await sendMail({ to: log.to, ...mail });
+  } catch (e) {
+    await finishMailLog(claim, { error: e instanceof Error ? e.message : String(e) });
+    return { sent: false, duplicate: false };
+  }
+  await finishMailLog(claim, { error: null });
+  return { sent: true, duplicate: false };
 }

@@ -3,53 +3,34 @@ import { createHash, randomBytes } from "node:crypto";
 import { and, desc, eq, gt, isNull } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { Role } from "@/lib/domain";
-import { ROLE_LABELS } from "@/lib/domain";
 import {
   acceptanceCheck,
   INVITATION_DAYS,
   invitationState,
   type InvitationState,
 } from "@/lib/invitations";
-import { env } from "@/lib/env";
-import { simpleHtml } from "@/server/mail";
-import { sendLoggedMail } from "./mail-log";
 import type { Anthology } from "./anthologies";
 
 const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
-/** Records an invitation and e-mails its link; the e-mail is logged. */
-export async function inviteToAnthology(
-  anthology: Anthology,
-  inviter: { id: string; name: string | null },
+/** Records an invitation; the token comes back once, to be e-mailed, and only its hash is kept. */
+export async function createInvitation(
+  anthologyId: number,
+  inviterId: string,
   email: string,
   role: Role,
-) {
+): Promise<{ token: string; expiresAt: Date }> {
   const token = randomBytes(24).toString("base64url");
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 24 * 3600 * 1000);
   await db.insert(schema.invitations).values({
-    anthologyId: anthology.id,
+    anthologyId,
     email,
     role,
     tokenHash: hashToken(token),
-    invitedBy: inviter.id,
+    invitedBy: inviterId,
     expiresAt,
   });
-  const link = `${env().AUTH_URL.replace(/\/$/, "")}/invite/${token}`;
-  const subject = `You're invited to ${anthology.title} on Quireline`;
-  const who = inviter.name ?? "An editor";
-  const lines = [
-    `${who} invited you to join "${anthology.title}" as ${ROLE_LABELS[role].toLowerCase()}.`,
-    `The invitation is good for ${INVITATION_DAYS} days.`,
-  ];
-  await sendLoggedMail({
-    anthologyId: anthology.id,
-    kind: "invitation",
-    to: email,
-    subject,
-    text: `${lines.join("\n")}\n\n${link}\n`,
-    html: simpleHtml(lines, { href: link, label: "Open the invitation" }),
-  });
-  return { expiresAt };
+  return { token, expiresAt };
 }
 
 export type InvitationLookup =

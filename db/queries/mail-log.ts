@@ -1,42 +1,51 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { db, schema } from "@/db";
-import { sendMail } from "@/server/mail";
 
-/** Sends a mail and writes it to the e-mail log; with a dedupe key, a second send is skipped. */
-export async function sendLoggedMail(mail: {
-  anthologyId?: number | null;
-  pieceId?: number | null;
-  kind: string;
-  to: string;
+/** MariaDB's error number for a duplicate key (ER_DUP_ENTRY). */
+const ER_DUP_ENTRY = 1062;
+
+function isDuplicateKey(error: unknown): boolean {
+  for (let e: unknown = error; e && typeof e === "object"; e = (e as { cause?: unknown }).cause) {
+    const { errno, code } = e as { errno?: number; code?: unknown };
+    if (errno === ER_DUP_ENTRY || code === "ER_DUP_ENTRY") return true;
+  }
+  return false;
+}
+
+/**
+ * Writes the log row for a mail about to be sent. With a dedupe key that another row already
+ * holds, nothing is written and "duplicate" comes back: that mail was sent, or is being sent.
+ */
+export async function claimMailLog(row: {
+  anthologyId: number | null;
+  pieceId: number | null;
+  toEmail: string;
   subject: string;
-  text: string;
-  html?: string;
-  dedupeKey?: string;
-}): Promise<{ sent: boolean }> {
-  if (mail.dedupeKey) {
-    const [already] = await db
-      .select({ id: schema.emailLog.id })
-      .from(schema.emailLog)
-      .where(eq(schema.emailLog.dedupeKey, mail.dedupeKey))
-      .limit(1);
-    if (already) return { sent: false };
-  }
-  let error: string | null = null;
+  kind: string;
+  dedupeKey: string | null;
+}): Promise<number | "duplicate"> {
   try {
-    await sendMail({ to: mail.to, subject: mail.subject, text: mail.text, html: mail.html });
-  } catch (e) {
-    error = e instanceof Error ? e.message : String(e);
+    const [inserted] = await db
+      .insert(schema.emailLog)
+      .values({ ...row, subject: row.subject.slice(0, 255), error: null, sentAt: null })
+      .$returningId();
+    if (!inserted) throw new Error("e-mail log insert returned no id");
+    return inserted.id;
+  } catch (error) {
+    if (row.dedupeKey && isDuplicateKey(error)) return "duplicate";
+    throw error;
   }
-  await db.insert(schema.emailLog).values({
-    anthologyId: mail.anthologyId ?? null,
-    pieceId: mail.pieceId ?? null,
-    toEmail: mail.to,
-    subject: mail.subject,
-    kind: mail.kind,
-    dedupeKey: error ? null : (mail.dedupeKey ?? null),
-    error,
-    sentAt: error ? null : new Date(),
-  });
-  return { sent: error === null };
+}
+
+/** Records how the send went; a failure gives up the dedupe key so a retry can claim it again. */
+export async function finishMailLog(id: number, outcome: { error: string | null }): Promise<void> {
+  await db
+    .update(schema.emailLog)
+    .set(
+      outcome.error === null
+        ? { sentAt: new Date(), error: null }
+        : { sentAt: null, error: outcome.error.slice(0, 4000), dedupeKey: null },
+    )
+    .where(eq(schema.emailLog.id, id));
 }

@@ -1,5 +1,4 @@
 import "server-only";
-import { createHash } from "node:crypto";
 import { and, asc, desc, eq, gt, inArray, or, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
 import { padToMultipleOf4 } from "@/lib/print/imposition";
@@ -8,21 +7,13 @@ import { defaultCaliperMm } from "@/lib/print/paper";
 import { checkMap } from "@/lib/map/check";
 import { sheetSides } from "@/lib/map/layout";
 import { countPasses } from "@/lib/map/passes";
-import { pagesInWords, piecePages } from "@/lib/map/state";
+import { piecePages } from "@/lib/map/state";
 import type { MapPiece, MapSlot, MapState, Proposal } from "@/lib/map/types";
 import { checkedChange } from "@/lib/map-edits/apply";
-import type {
-  MapEventView,
-  MapPayload,
-  MapPieceCard,
-  NoticesAnswer,
-} from "@/lib/map-edits/payload";
+import type { MapEventView, MapPayload, MapPieceCard } from "@/lib/map-edits/payload";
 import type { SessionUser } from "@/lib/domain";
-import { env } from "@/lib/env";
-import { simpleHtml } from "@/server/mail";
 import type { MapChangeRequest } from "@/lib/validations/page-map";
 import type { Anthology } from "./anthologies";
-import { sendLoggedMail } from "./mail-log";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
@@ -334,85 +325,33 @@ export type { Proposal };
 
 /* ---------- Page notices ---------- */
 
-/**
- * E-mails each contributor with placed pieces the pages they are on. One message per contributor
- * per set of pages: the dedupe key carries a hash of their pages, so sending again sends nothing
- * new until their pages change.
- */
-export async function sendPageNotices(anthology: Anthology): Promise<NoticesAnswer> {
+export type PageNoticeRecipient = {
+  contributorId: string;
+  email: string | null;
+  name: string | null;
+  pieces: { title: string; pages: number[] }[];
+};
+
+/** Each contributor with accepted pieces placed on the map, and the pages those pieces sit on. */
+export async function pageNoticeRecipients(anthology: Anthology): Promise<PageNoticeRecipient[]> {
   const { state, pieces } = await db.transaction(async (tx) => {
     const pieces = await readPieces(tx, anthology.id);
     return { pieces, state: toState(anthology, await readSlots(tx, anthology.id, false), pieces) };
   });
   const where = piecePages(state);
-  const byPerson = new Map<
-    string,
-    { email: string | null; name: string; lines: { title: string; pages: number[] }[] }
-  >();
+  const byPerson = new Map<string, PageNoticeRecipient>();
   for (const piece of pieces) {
     if (piece.status !== "accepted") continue;
     const pages = (where.get(piece.id) ?? []).map((w) => w.page);
     if (pages.length === 0) continue;
     const entry = byPerson.get(piece.contributorId) ?? {
+      contributorId: piece.contributorId,
       email: piece.contributorEmail,
       name: piece.contributorName,
-      lines: [],
+      pieces: [],
     };
-    entry.lines.push({ title: piece.title, pages });
+    entry.pieces.push({ title: piece.title, pages });
     byPerson.set(piece.contributorId, entry);
   }
-  const answer: NoticesAnswer = { sent: 0, alreadySent: 0, failed: 0, contributors: byPerson.size };
-  const link = `${env().AUTH_URL.replace(/\/$/, "")}/studio/${anthology.slug}`;
-  for (const [contributorId, person] of byPerson) {
-    if (!person.email) {
-      answer.failed++;
-      continue;
-    }
-    const lines = person.lines.map((l) => `“${l.title}”: ${pagesInWords(l.pages)}`);
-    const hash = createHash("sha256")
-      .update(JSON.stringify(person.lines))
-      .digest("hex")
-      .slice(0, 16);
-    const dedupeKey = `page-notice:${anthology.id}:${contributorId}:${hash}`;
-    const [already] = await db
-      .select({ id: schema.emailLog.id })
-      .from(schema.emailLog)
-      .where(eq(schema.emailLog.dedupeKey, dedupeKey))
-      .limit(1);
-    if (already) {
-      answer.alreadySent++;
-      continue;
-    }
-    const subject = `Your pages in ${anthology.title}`;
-    const intro = `Hello ${person.name}, the page map of ${anthology.title} puts your work here:`;
-    const outro = "Page numbers can still change before printing; we will write again if they do.";
-    try {
-      const { sent } = await sendLoggedMail({
-        anthologyId: anthology.id,
-        kind: "page-notice",
-        to: person.email,
-        subject,
-        text: `${intro}\n\n${lines.map((l) => `- ${l}`).join("\n")}\n\n${outro}\n\n${link}`,
-        html: simpleHtml([intro, ...lines, outro], {
-          href: link,
-          label: `Open ${anthology.title}`,
-        }),
-        dedupeKey,
-      });
-      if (sent) answer.sent++;
-      else answer.failed++;
-    } catch (error) {
-      // Another send of the same notice won the race to the log: it went out once already.
-      if (isDuplicateKey(error)) answer.alreadySent++;
-      else throw error;
-    }
-  }
-  return answer;
-}
-
-function isDuplicateKey(error: unknown): boolean {
-  for (let e: unknown = error; e && typeof e === "object"; e = (e as { cause?: unknown }).cause) {
-    if ((e as { code?: unknown }).code === "ER_DUP_ENTRY") return true;
-  }
-  return false;
+  return [...byPerson.values()];
 }

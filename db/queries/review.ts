@@ -3,14 +3,10 @@ import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from "dri
 import { db, schema } from "@/db";
 import { fileVersionSummary } from "./submissions";
 import { PIECE_KINDS, PIECE_STATUS_LABELS, PIECE_STATUSES, type PieceStatus } from "@/lib/domain";
-import { env } from "@/lib/env";
-import { simpleHtml } from "@/server/mail";
-import { canMove, STATUSES_THAT_EMAIL } from "@/lib/pieces/status";
-import { statusMail } from "@/lib/pieces/status-mail";
+import { editorMoveRefusal } from "@/lib/pieces/status";
 import { PIECE_VERDICT_RANK, PIECE_VERDICTS, type PieceVerdict } from "@/lib/pieces/verdict";
 import type { SubmissionSort, SubmissionsQuery } from "@/lib/validations/review";
 import type { Anthology } from "./anthologies";
-import { sendLoggedMail } from "./mail-log";
 
 const p = schema.pieces;
 const u = schema.users;
@@ -138,35 +134,28 @@ export async function findPieceAnthologySlug(pieceId: number): Promise<string | 
 
 /* ---------- Status changes ---------- */
 
-export type StatusChangeOutcome =
-  | { pieceId: number; changed: true; from: PieceStatus; to: PieceStatus; mailed: boolean | null }
-  | { pieceId: number; changed: false; reason: string };
-
-const label = (s: PieceStatus) => `"${PIECE_STATUS_LABELS[s]}"`;
-
-/** Why an editor cannot move a piece from `from` to `to`, or null when they can. */
-function refusal(from: PieceStatus, to: PieceStatus): string | null {
-  if (from === to) return `It is already ${label(to)}.`;
-  if (from === "withdrawn")
-    return "The contributor withdrew this piece; it can no longer be moved.";
-  if (to === "withdrawn") return "Only the contributor can withdraw a piece.";
-  if (!canMove(from, to, "editor"))
-    return `A piece that is ${label(from)} cannot be moved to ${label(to)}.`;
-  return null;
-}
+export type RecordedMove =
+  | { changed: false; reason: string }
+  | {
+      changed: true;
+      from: PieceStatus;
+      title: string;
+      contributorId: string;
+      eventId: number | undefined;
+    };
 
 /**
- * Moves one piece of `anthology` to `to` in its own transaction (row locked, rule checked, history
- * written), then e-mails the contributor when the move is one they hear about.
+ * Moves one piece of `anthology` to `to` in its own transaction: row locked, the editors' rule
+ * checked (lib/pieces/status.ts), history written. Telling the contributor is the caller's.
  */
-export async function movePiece(
+export async function recordPieceMove(
   anthology: Anthology,
-  actor: { id: string; name: string | null },
+  actor: { id: string },
   pieceId: number,
   to: PieceStatus,
   options: { message?: string; expectedFrom?: PieceStatus } = {},
-): Promise<StatusChangeOutcome> {
-  const result = await db.transaction(async (tx) => {
+): Promise<RecordedMove> {
+  return db.transaction(async (tx) => {
     const [row] = await tx
       .select({ status: p.status, title: p.title, contributorId: p.contributorId })
       .from(p)
@@ -177,10 +166,10 @@ export async function movePiece(
     if (options.expectedFrom && row.status !== options.expectedFrom) {
       return {
         changed: false as const,
-        reason: `Someone moved it to ${label(row.status)} in the meantime; look again before changing it.`,
+        reason: `Someone moved it to "${PIECE_STATUS_LABELS[row.status]}" in the meantime; look again before changing it.`,
       };
     }
-    const refused = refusal(row.status, to);
+    const refused = editorMoveRefusal(row.status, to);
     if (refused) return { changed: false as const, reason: refused };
     await tx.update(p).set({ status: to }).where(eq(p.id, pieceId));
     const [event] = await tx
@@ -201,79 +190,18 @@ export async function movePiece(
       eventId: event?.id,
     };
   });
-  if (!result.changed) return { pieceId, changed: false, reason: result.reason };
-
-  let mailed: boolean | null = null;
-  if (STATUSES_THAT_EMAIL.includes(to)) {
-    mailed = await mailContributor(anthology, actor, {
-      pieceId,
-      title: result.title,
-      contributorId: result.contributorId,
-      to,
-      message: options.message,
-      eventId: result.eventId,
-    });
-  }
-  return { pieceId, changed: true, from: result.from, to, mailed };
 }
 
-async function mailContributor(
-  anthology: Anthology,
-  actor: { name: string | null },
-  change: {
-    pieceId: number;
-    title: string;
-    contributorId: string;
-    to: PieceStatus;
-    message?: string;
-    eventId?: number;
-  },
-): Promise<boolean> {
-  const [contributor] = await db
+/** The address and name to write to about a piece, or undefined for an account with no address. */
+export async function contributorContact(
+  userId: string,
+): Promise<{ email: string; name: string | null } | undefined> {
+  const [row] = await db
     .select({ name: u.name, email: u.email })
     .from(u)
-    .where(eq(u.id, change.contributorId))
+    .where(eq(u.id, userId))
     .limit(1);
-  if (!contributor?.email) return false;
-  const mail = statusMail({
-    to: change.to,
-    pieceTitle: change.title,
-    anthologyTitle: anthology.title,
-    contributorName: contributor.name,
-    editorName: actor.name,
-    message: change.message,
-    pieceUrl: `${env().AUTH_URL.replace(/\/$/, "")}/studio/${anthology.slug}/my-pieces/${change.pieceId}`,
-  });
-  if (!mail) return false;
-  const paragraphs = mail.paragraphs.filter(Boolean);
-  const { sent } = await sendLoggedMail({
-    anthologyId: anthology.id,
-    pieceId: change.pieceId,
-    kind: `status-${change.to}`,
-    to: contributor.email,
-    subject: mail.subject,
-    text: `${paragraphs.join("\n\n")}\n\n${mail.link.label}: ${mail.link.href}\n`,
-    html: simpleHtml(paragraphs, mail.link),
-    dedupeKey: change.eventId ? `piece-event-${change.eventId}` : undefined,
-  });
-  return sent;
-}
-
-/** Moves several pieces, each in its own transaction; refusals do not stop the others. */
-export async function movePieces(
-  anthology: Anthology,
-  actor: { id: string; name: string | null },
-  pieceIds: number[],
-  to: PieceStatus,
-  message?: string,
-) {
-  const outcomes: StatusChangeOutcome[] = [];
-  for (const pieceId of pieceIds)
-    outcomes.push(await movePiece(anthology, actor, pieceId, to, { message }));
-  return {
-    changed: outcomes.filter((o) => o.changed),
-    refused: outcomes.filter((o) => !o.changed),
-  };
+  return row?.email ? { email: row.email, name: row.name } : undefined;
 }
 
 /* ---------- One piece in full ---------- */

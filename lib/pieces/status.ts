@@ -2,7 +2,7 @@
  * How a submitted piece moves between statuses, and who may move it. Pure: the route handlers
  * consult it before writing, and the review table uses it to offer only the moves that exist.
  */
-import type { PieceStatus } from "@/lib/domain";
+import { PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 
 /** Moves an editor may make from each status. */
 const EDITOR_MOVES: Record<PieceStatus, readonly PieceStatus[]> = {
@@ -53,3 +53,16 @@ export const STATUSES_THAT_EMAIL: readonly PieceStatus[] = [
   "accepted",
   "declined",
 ];
+
+const quoted = (s: PieceStatus) => `"${PIECE_STATUS_LABELS[s]}"`;
+
+/** Why an editor cannot move a piece from `from` to `to`, in plain words, or null when they can. */
+export function editorMoveRefusal(from: PieceStatus, to: PieceStatus): string | null {
+  if (from === to) return `It is already ${quoted(to)}.`;
+  if (from === "withdrawn")
+    return "The contributor withdrew this piece; it can no longer be moved.";
+  if (to === "withdrawn") return "Only the contributor can withdraw a piece.";
+  if (!canMove(from, to, "editor"))
+    return `A piece that is ${quoted(from)} cannot be moved to ${quoted(to)}.`;
+  return null;
+}

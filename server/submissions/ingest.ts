@@ -9,16 +9,16 @@ import { createHash } from "node:crypto";
 import { and, eq, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { Anthology } from "@/db/queries/anthologies";
-import { sendLoggedMail } from "@/db/queries/mail-log";
 import { findCall, refreshPieceVerdict, type Call, type Piece } from "@/db/queries/submissions";
 import type { PieceStatus } from "@/lib/domain";
 import { Refusal } from "@/lib/refusal";
 import { env } from "@/lib/env";
-import { simpleHtml } from "@/server/mail";
+import { specReportMail } from "@/lib/mail/templates/spec-report";
+import { appUrl, sendLoggedMail } from "@/server/mail";
 import { checkArtwork, type SpecReport } from "@/lib/print/check";
 import { specOf, type PrintSpec } from "@/lib/print/spec";
 import { mayUploadFiles, statusAfterNewFile } from "@/lib/pieces/status";
-import { isPieceVerdict, PIECE_VERDICT_LABELS, type PieceVerdict } from "@/lib/pieces/verdict";
+import { isPieceVerdict, type PieceVerdict } from "@/lib/pieces/verdict";
 import { isCallOpen } from "@/lib/stages";
 import { maxUploadBytes, readStoredFile } from "@/server/uploads";
 import type { ArtworkUploadInput } from "@/lib/validations/piece";
@@ -276,16 +276,7 @@ export async function ingestUpload(
   };
 }
 
-const VERDICT_WORDS: Record<SpecReport["verdict"], string> = {
-  pass: PIECE_VERDICT_LABELS.pass,
-  note: PIECE_VERDICT_LABELS.note,
-  warning: PIECE_VERDICT_LABELS.warning,
-  blocker: PIECE_VERDICT_LABELS.blocker,
-};
-
-const SEVERITY_WORDS = { blocker: "Must fix", warning: "Should fix", note: "Note" } as const;
-
-/** The spec report by e-mail: the verdict, each finding with its fix, and a link to the piece. */
+/** The spec report by e-mail to the person who uploaded the file, once per version. */
 async function mailReport(
   anthology: Anthology,
   request: IngestRequest,
@@ -297,30 +288,25 @@ async function mailReport(
     .from(schema.users)
     .where(eq(schema.users.id, request.uploadedBy));
   if (!person?.email) return;
-  const href = `${env().AUTH_URL.replace(/\/$/, "")}/studio/${anthology.slug}/my-pieces/${request.pieceId}`;
-  const subject = `Spec check: "${outcome.title}", page ${request.pageIndex}: ${VERDICT_WORDS[report.verdict]}`;
-  const paragraphs = [
-    `${person.name ? `Hello ${person.name}, w` : "W"}e checked ${request.file.name} (version ${outcome.versionNumber} of page ${request.pageIndex} of "${outcome.title}") against the print spec of ${anthology.title}.`,
-    report.findings.length === 0
-      ? "It meets the spec: nothing to fix."
-      : `Verdict: ${VERDICT_WORDS[report.verdict]}. What we found:`,
-    ...report.findings.map(
-      (f) => `${SEVERITY_WORDS[f.severity]}: ${f.message}${f.fix ? ` Fix: ${f.fix}` : ""}`,
-    ),
-    ...(outcome.current
-      ? []
-      : [
-          "Another upload replaced this page while yours was on its way, so yours is kept as a version but not used. You can choose it on the piece's page.",
-        ]),
-  ];
-  await sendLoggedMail({
-    anthologyId: anthology.id,
-    pieceId: request.pieceId,
-    kind: "spec-report",
-    to: person.email,
-    subject,
-    text: `${paragraphs.join("\n\n")}\n\nSee the report with the trim, bleed and safe-area lines: ${href}\n`,
-    html: simpleHtml(paragraphs, { href, label: "See the report" }),
-    dedupeKey: `spec-report-${outcome.versionId}`,
+  const mail = specReportMail({
+    personName: person.name,
+    fileName: request.file.name,
+    pieceTitle: outcome.title,
+    pageIndex: request.pageIndex,
+    versionNumber: outcome.versionNumber,
+    anthologyTitle: anthology.title,
+    report,
+    notUsed: outcome.current ? null : "replaced",
+    link: appUrl(`/studio/${anthology.slug}/my-pieces/${request.pieceId}`),
   });
+  await sendLoggedMail(
+    {
+      anthologyId: anthology.id,
+      pieceId: request.pieceId,
+      kind: "spec-report",
+      to: person.email,
+      dedupeKey: `spec-report-${outcome.versionId}`,
+    },
+    mail,
+  );
 }

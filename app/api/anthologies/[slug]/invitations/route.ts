@@ -1,6 +1,6 @@
 import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { rolesInvitableBy } from "@/lib/auth/policy";
-import { inviteToAnthology } from "@/db/queries/invitations";
+import { inviteToAnthology } from "@/server/invitations";
 import { inviteSchema } from "@/lib/validations/anthology";
 import type { InvitationSentAnswer } from "@/lib/wire/anthologies";
 

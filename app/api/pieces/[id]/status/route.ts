@@ -1,4 +1,4 @@
-import { movePiece } from "@/db/queries/review";
+import { movePiece } from "@/server/review";
 import { apiRoute, HttpError, readJson, requirePieceApiAccess } from "@/server/api";
 import { pieceStatusChangeSchema } from "@/lib/validations/review";
 import type { PieceMoveAnswer } from "@/lib/wire/review";

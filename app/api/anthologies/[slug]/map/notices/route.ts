@@ -1,4 +1,4 @@
-import { sendPageNotices } from "@/db/queries/page-map";
+import { sendPageNotices } from "@/server/page-notices";
 import type { NoticesAnswer } from "@/lib/map-edits/payload";
 import { apiRoute, requireApiAccess } from "@/server/api";
 

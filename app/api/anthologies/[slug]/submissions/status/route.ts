@@ -1,4 +1,4 @@
-import { movePieces } from "@/db/queries/review";
+import { movePieces } from "@/server/review";
 import { apiRoute, readJson, requireApiAccess } from "@/server/api";
 import { bulkStatusChangeSchema } from "@/lib/validations/review";
 import type { BulkMoveAnswer } from "@/lib/wire/review";

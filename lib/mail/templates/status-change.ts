@@ -3,6 +3,7 @@
  * paragraphs and the link; the caller renders and sends it.
  */
 import { PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
+import { composeMail, type Mail } from "../compose";
 
 export type StatusMailInput = {
   to: PieceStatus;
@@ -73,4 +74,10 @@ export function statusMail(input: StatusMailInput): StatusMail | null {
     default:
       return null;
   }
+}
+
+/** The status-change e-mail ready to send, or null for moves that send none. */
+export function statusChangeMail(input: StatusMailInput): Mail | null {
+  const mail = statusMail(input);
+  return mail ? composeMail(mail.subject, mail.paragraphs, mail.link) : null;
 }
