@@ -23,7 +23,7 @@ export { sniffFormat, formatFromFilename, formatFromMimeType } from "./sniff";
 export { readDeclaredDensity } from "./density";
 export { classifySize, meetsPpi } from "./geometry";
 export { verdictOf } from "./report";
-export { LOW_PPI_BLOCKER_RATIO } from "./raster";
+export { LOW_PPI_BLOCKER_RATIO } from "./findings/size";
 export { DEFAULT_TRIM_TOLERANCE_MM } from "./pdf";
 
 interface Triage {
