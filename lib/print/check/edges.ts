@@ -9,6 +9,12 @@ import type { EdgeReport, EdgeSide } from "./types";
 const INK_BELOW = 235;
 /** A pixel this far from the band's background tone counts as content. */
 const CONTENT_DELTA = 48;
+/**
+ * Alpha below this (of 255, so under 50% opacity) counts as mostly transparent: printed on
+ * paper such a pixel shows more paper than ink. In PNG (W3C PNG spec, alpha channel) 0 is fully
+ * transparent and 255 fully opaque at 8 bits; the decode here is always 8 bits.
+ */
+export const MOSTLY_TRANSPARENT_BELOW = 128;
 
 export interface EdgeGeometry {
   /** The physical box the whole image covers, mm. */
@@ -29,14 +35,19 @@ export function analyseEdges(
   colourfulShare: number;
 } {
   const lum = new Uint8Array(width * height);
-  let transparent = 0;
+  let notOpaque = 0;
+  let mostlyTransparent = 0;
+  let alphaSum = 0;
   let colourful = 0;
   for (let i = 0, p = 0; i < lum.length; i++, p += 4) {
     const r = rgba[p] ?? 255;
     const g = rgba[p + 1] ?? 255;
     const b = rgba[p + 2] ?? 255;
-    const a = (rgba[p + 3] ?? 255) / 255;
-    if (a < 1) transparent++;
+    const alpha = rgba[p + 3] ?? 255;
+    const a = alpha / 255;
+    if (alpha < 255) notOpaque++;
+    if (alpha < MOSTLY_TRANSPARENT_BELOW) mostlyTransparent++;
+    alphaSum += alpha;
     if (Math.max(Math.abs(r - g), Math.abs(g - b), Math.abs(r - b)) > 16 && a > 0) colourful++;
     // Rec. 709 luma weights, composited over white paper.
     const y = 0.2126 * r + 0.7152 * g + 0.0722 * b;
@@ -78,7 +89,11 @@ export function analyseEdges(
     analysedWidthPx: width,
     analysedHeightPx: height,
     sides,
-    transparentShare: transparent / total,
+    transparency: {
+      notOpaqueShare: notOpaque / total,
+      mostlyTransparentShare: mostlyTransparent / total,
+      meanOpacity: width * height > 0 ? alphaSum / (255 * width * height) : 1,
+    },
     colourfulShare: colourful / total,
   };
 }

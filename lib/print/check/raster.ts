@@ -139,7 +139,7 @@ export async function checkRaster(
   // Colour and alpha findings now know what the pixels hold.
   findings = findings.filter((f) => !COLOUR_CODES.has(f.code) && f.code !== "alpha-channel");
   findings.push(...colourFindings(spec, measured, colourfulShare));
-  if (measured.hasAlpha) findings.push(alphaFinding(edges.transparentShare));
+  if (measured.hasAlpha) findings.push(alphaFinding(edges.transparency));
   if (options.edgeAnalysis && placed) {
     findings = findings.filter((f) => f.code !== "no-bleed");
     findings.push(...edgeFindings(spec, verdict, edges.sides, widthPx, heightPx));

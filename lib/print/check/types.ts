@@ -78,12 +78,21 @@ export interface EdgeSide {
   safeBandContentMm2: number;
 }
 
+/** How transparent an image is, from its analysed pixels; all opaque when it has no alpha. */
+export interface TransparencyStats {
+  /** Share of pixels that are not fully opaque (alpha below full), 0–1. */
+  notOpaqueShare: number;
+  /** Share of pixels that are fully or mostly transparent (under 50% opacity), 0–1. */
+  mostlyTransparentShare: number;
+  /** Average opacity over all pixels, 0 (all clear) to 1 (all opaque). */
+  meanOpacity: number;
+}
+
 export interface EdgeReport {
   analysedWidthPx: number;
   analysedHeightPx: number;
   sides: EdgeSide[];
-  /** Share of analysed pixels that are not fully opaque, 0–1; 0 when there is no alpha. */
-  transparentShare: number;
+  transparency: TransparencyStats;
 }
 
 export interface PdfBox {

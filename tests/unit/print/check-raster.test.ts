@@ -227,10 +227,13 @@ describe("colour against the print method", () => {
     const r1 = await checkArtwork(holes, at100());
     expect(r1.measured.hasAlpha).toBe(true);
     expect(find(r1, "transparency")?.severity).toBe("warning");
+    // 100 of 575 columns clear: 17.4% of the pixels, average opacity 475/575 = 82.6%
+    expect(find(r1, "transparency")?.message).toContain(
+      "17% of the pixels are fully or mostly transparent; average opacity is 83%.",
+    );
     const opaque = makePng(575, 875, solid(70), { colorType: 6 });
     expect(find(await checkArtwork(opaque, at100()), "alpha-channel")?.severity).toBe("note");
   });
-
   it("16 bits per channel is a note", async () => {
     const deep = await sharp({
       create: { width: 575, height: 875, channels: 3, background: "#777777" },
@@ -241,5 +244,66 @@ describe("colour against the print method", () => {
     const report = await checkArtworkHeader(deep, at100({ printMethod: "laser-colour", inks: [] }));
     expect(report.measured.bitDepth).toBe(16);
     expect(codes(report)).toContain("high-bit-depth");
+  });
+});
+
+describe("transparency in words", () => {
+  // PNG spec (W3C), alpha channel: 0 is fully transparent, 2^bitdepth - 1 (255 at 8 bits) fully
+  // opaque. A pixel under 50% opacity (alpha below 128) counts as mostly transparent.
+  const W = 575;
+  const H = 875;
+  const withAlpha = (alpha: (y: number) => number) =>
+    makePng(W, H, (_x, y) => [40, 40, 40, alpha(y)], { colorType: 6 });
+
+  it("an opacity ramp from 0 to 255 by row is half mostly transparent and 50% opaque on average", async () => {
+    // Row y has alpha round(255 y / 874): rows 0-436 are below 128, so 437 of 875 rows (49.9%);
+    // the rows pair up to 255 around the middle one (127.5 -> 128), so the mean is 50.0%.
+    // Only rows 0 and 1 are fully clear, rows 873 and 874 fully opaque: counting every pixel
+    // short of opaque as transparent would say "about 100%".
+    const report = await checkArtwork(
+      withAlpha((y) => Math.round((255 * y) / (H - 1))),
+      at100(),
+    );
+    const f = find(report, "transparency");
+    expect(f?.severity).toBe("warning");
+    expect(f?.message).toContain(
+      "50% of the pixels are fully or mostly transparent; average opacity is 50%.",
+    );
+    expect(f?.message).not.toMatch(/100%/);
+    const stats = report.measured.edges?.transparency;
+    expect(stats?.mostlyTransparentShare).toBeCloseTo(437 / 875, 9);
+    expect(stats?.meanOpacity).toBeCloseTo(0.5, 3);
+    expect(stats?.notOpaqueShare).toBeCloseTo(873 / 875, 9);
+  });
+
+  it("a fully transparent image would print as bare paper", async () => {
+    const report = await checkArtwork(
+      withAlpha(() => 0),
+      at100(),
+    );
+    expect(find(report, "transparency")?.message).toBe(
+      "Every pixel is fully transparent: the page would print as bare paper.",
+    );
+    expect(report.measured.edges?.transparency).toEqual({
+      notOpaqueShare: 1,
+      mostlyTransparentShare: 1,
+      meanOpacity: 0,
+    });
+  });
+
+  it("a fully opaque image with an alpha channel is only a note", async () => {
+    const report = await checkArtwork(
+      withAlpha(() => 255),
+      at100(),
+    );
+    expect(codes(report)).not.toContain("transparency");
+    expect(find(report, "alpha-channel")?.message).toBe(
+      "The file has a transparency (alpha) channel, but every pixel is opaque.",
+    );
+    expect(report.measured.edges?.transparency).toEqual({
+      notOpaqueShare: 0,
+      mostlyTransparentShare: 0,
+      meanOpacity: 1,
+    });
   });
 });
