@@ -26,3 +26,11 @@ export function formatLength(mm: number): string {
 export function mmText(mm: number): string {
   return String(roundTo(mm, 3));
 }
+
+/**
+ * A length in the unit the editor typed it in, with millimetres beside inches since the spec is
+ * stored in millimetres: "24 in (609.6 mm)", "3 mm".
+ */
+export function lengthInUnit(mm: number, unit: "mm" | "in"): string {
+  return unit === "in" ? `${roundTo(mmToIn(mm), 3)} in (${mmText(mm)} mm)` : `${mmText(mm)} mm`;
+}

@@ -1,5 +1,5 @@
 /** The print spec an anthology sets, and the sizes and pixel counts derived from it. */
-import { mmToPx } from "./units";
+import { mmToPx, roundTo } from "./units";
 import type { SizeMm } from "./sizes";
 
 /** How the booklet will be printed, the one list; lib/domain.ts re-exports it beside its labels. */
@@ -96,22 +96,50 @@ export function pixelsFor(size: SizeMm, ppi: number): { widthPx: number; heightP
   return { widthPx: up(mmToPx(size.widthMm, ppi)), heightPx: up(mmToPx(size.heightMm, ppi)) };
 }
 
-/** Problems that make a spec unusable, in plain words; empty when it is sound. */
-export function specProblems(spec: PrintSpec): string[] {
-  const problems: string[] = [];
+/** A spec field a problem is about, so a form can show it beside the right input. */
+export type SpecField = "trim" | "bleedMm" | "safeMarginMm" | "minPpi" | "pagesExpected" | "inks";
+
+export interface SpecProblem {
+  field: SpecField;
+  message: string;
+}
+
+/** A length for a message; specs are in millimetres, so by default "3.175 mm". */
+export type LengthText = (mm: number) => string;
+const millimetres: LengthText = (mm) => `${roundTo(mm, 3)} mm`;
+
+/**
+ * Problems that make a spec unusable, each with the field it is about; empty when it is sound.
+ * `length` writes lengths in the reader's unit (a form passes one for the unit the editor chose).
+ */
+export function specFieldProblems(
+  spec: PrintSpec,
+  length: LengthText = millimetres,
+): SpecProblem[] {
+  const problems: SpecProblem[] = [];
+  const add = (field: SpecField, message: string) => problems.push({ field, message });
   if (!(spec.trimWidthMm > 0) || !(spec.trimHeightMm > 0))
-    problems.push("The trim size must be greater than zero.");
-  if (!(spec.bleedMm >= 0)) problems.push("The bleed cannot be negative.");
-  if (!(spec.safeMarginMm >= 0)) problems.push("The safe margin cannot be negative.");
-  if (2 * spec.safeMarginMm >= Math.min(spec.trimWidthMm, spec.trimHeightMm))
-    problems.push("The safe margins leave no room on the page.");
-  if (!(spec.minPpi > 0)) problems.push("The minimum resolution must be greater than zero.");
+    add("trim", "The trim size must be greater than zero.");
+  if (!(spec.bleedMm >= 0)) add("bleedMm", "The bleed cannot be negative.");
+  if (!(spec.safeMarginMm >= 0)) add("safeMarginMm", "The safe margin cannot be negative.");
+  const shortSideMm = Math.min(spec.trimWidthMm, spec.trimHeightMm);
+  if (2 * spec.safeMarginMm >= shortSideMm)
+    add(
+      "safeMarginMm",
+      `Safe margins of ${length(spec.safeMarginMm)} on each side leave no room on the page, whose short side is ${length(shortSideMm)}.`,
+    );
+  if (!(spec.minPpi > 0)) add("minPpi", "The minimum resolution must be greater than zero.");
   if (
     spec.pagesExpected !== undefined &&
     !(Number.isInteger(spec.pagesExpected) && spec.pagesExpected > 0)
   )
-    problems.push("Pages expected must be a whole number above zero.");
+    add("pagesExpected", "Pages expected must be a whole number above zero.");
   if (spec.printMethod === "duplicator" && spec.inks.length === 0)
-    problems.push("Duplicator printing needs at least one ink.");
+    add("inks", "Duplicator printing needs at least one ink.");
   return problems;
+}
+
+/** Problems that make a spec unusable, in plain words; empty when it is sound. */
+export function specProblems(spec: PrintSpec, length?: LengthText): string[] {
+  return specFieldProblems(spec, length).map((p) => p.message);
 }

@@ -97,6 +97,73 @@ describe("anthology spec input", () => {
     expect(messages({ inks: [] }).inks).toBe("Name at least one ink");
   });
 
+  it("judges bleed in millimetres after converting the unit: 24 in is refused, naming both units", () => {
+    // NBS Circular 572: 1 in = 25.4 mm exactly, so 24 in = 609.6 mm, far past a 25 mm bleed
+    expect(messages({ unit: "in", bleed: 24 }).bleed).toBe(
+      "A bleed of 24 in (609.6 mm) is over 25 mm, which is unusual: check the unit",
+    );
+    // 1 in = 25.4 mm is just over too; 24 mm typed in millimetres is not
+    expect(messages({ unit: "in", bleed: 1 }).bleed).toBe(
+      "A bleed of 1 in (25.4 mm) is over 25 mm, which is unusual: check the unit",
+    );
+    expect(parse({ unit: "mm", trimChoice: "a5", bleed: 24, safeMargin: 5 }).success).toBe(true);
+    expect(messages({ unit: "mm", trimChoice: "a5", bleed: 30, safeMargin: 5 }).bleed).toBe(
+      "A bleed of 30 mm is over 25 mm, which is unusual: check the unit",
+    );
+  });
+
+  it("accepts the usual 1/8 in bleed and stores it as 3.175 mm", () => {
+    // Wikipedia "Bleed (printing)": 1/8 in is the usual US bleed; 0.125 x 25.4 = 3.175 mm
+    const result = parse({ unit: "in", bleed: 0.125 });
+    expect(result.success).toBe(true);
+    expect(anthologySpecFromInput(result.data!).bleedMm).toBeCloseTo(3.175, 9);
+  });
+
+  it("judges safe margins in millimetres too: 2.5 in is over 50 mm", () => {
+    // 2.5 in = 63.5 mm (NBS Circular 572); 2 in = 50.8 mm
+    expect(messages({ unit: "in", safeMargin: 2.5 }).safeMargin).toBe(
+      "A safe margin of 2.5 in (63.5 mm) is over 50 mm, which is unusual: check the unit",
+    );
+  });
+
+  it("refuses safe margins that leave no room on the page when the anthology is created", () => {
+    // 3.5 x 4.5 in trim (common practice, no source): 1.75 in margins each side use the whole 3.5 in width
+    const cramped = messages({ trimChoice: "3.5x4.5in", unit: "in", safeMargin: 1.75 });
+    expect(cramped.safeMargin).toBe(
+      "Safe margins of 1.75 in (44.45 mm) on each side leave no room on the page, whose short side is 3.5 in (88.9 mm).",
+    );
+    // Turned landscape, the short side is still 3.5 in
+    expect(
+      messages({
+        trimChoice: "3.5x4.5in",
+        orientation: "landscape",
+        unit: "in",
+        safeMargin: 1.75,
+      }).safeMargin,
+    ).toMatch(/leave no room on the page/);
+    // A custom 60 x 90 mm card with 30 mm margins: nothing left across its 60 mm width
+    expect(
+      messages({
+        trimChoice: "custom",
+        unit: "mm",
+        customWidth: 60,
+        customHeight: 90,
+        bleed: 3,
+        safeMargin: 30,
+      }).safeMargin,
+    ).toBe(
+      "Safe margins of 30 mm on each side leave no room on the page, whose short side is 60 mm.",
+    );
+    expect(parse({ trimChoice: "3.5x4.5in", unit: "in", safeMargin: 0.25 }).success).toBe(true);
+  });
+
+  it("refuses a negative bleed or safe margin in either unit", () => {
+    expect(messages({ unit: "in", bleed: -0.125 }).bleed).toBe("The bleed cannot be negative.");
+    expect(messages({ unit: "mm", trimChoice: "a5", bleed: 3, safeMargin: -1 }).safeMargin).toBe(
+      "The safe margin cannot be negative.",
+    );
+  });
+
   it("makes slugs from titles", () => {
     expect(slugify("Low Tide Almanac #3: Mudflats!")).toBe("low-tide-almanac-3-mudflats");
     expect(slugify("Écume & Sel")).toBe("ecume-sel");

@@ -128,7 +128,9 @@ describe("stage moves", () => {
       facts({ anthology: { ...facts().anthology, safeMarginMm: 80 } }),
       "call-open",
     );
-    expect(cramped.problems).toEqual(["Print spec: The safe margins leave no room on the page."]);
+    expect(cramped.problems).toEqual([
+      "Print spec: Safe margins of 80 mm on each side leave no room on the page, whose short side is 139.7 mm.",
+    ]);
   });
 
   it("warn when a call closes early", () => {

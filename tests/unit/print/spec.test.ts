@@ -7,6 +7,7 @@ import {
   pixelsFor,
   PRINT_METHODS,
   safeAreaOf,
+  specFieldProblems,
   specOf,
   specProblems,
   trimOf,
@@ -72,9 +73,26 @@ describe("spec sanity", () => {
       "The minimum resolution must be greater than zero.",
       "Duplicator printing needs at least one ink.",
     ]);
+    // 2 x 80 mm of margin is more than the 139.7 mm width of half letter (5.5 in x 25.4)
     expect(specProblems({ ...halfLetter, safeMarginMm: 80 })).toContain(
-      "The safe margins leave no room on the page.",
+      "Safe margins of 80 mm on each side leave no room on the page, whose short side is 139.7 mm.",
     );
+  });
+
+  it("margins that exactly meet leave no room; writes lengths in the unit it is given", () => {
+    // 2 x 2.75 in = 5.5 in, the whole width of half letter
+    const problems = specFieldProblems(
+      { ...halfLetter, safeMarginMm: inToMm(2.75) },
+      (mm) => `${(mm / 25.4).toFixed(2)} in`,
+    );
+    expect(problems).toEqual([
+      {
+        field: "safeMarginMm",
+        message:
+          "Safe margins of 2.75 in on each side leave no room on the page, whose short side is 5.50 in.",
+      },
+    ]);
+    expect(specProblems({ ...halfLetter, safeMarginMm: inToMm(2.7) })).toEqual([]);
   });
 });
 
