@@ -6,8 +6,9 @@ import { db, schema } from "@/db";
 import type { PieceStatus, Role } from "@/lib/domain";
 import type { SpecReport } from "@/lib/print/check";
 import { canMove } from "@/lib/pieces/status";
-import { PIECE_VERDICT_RANK, type PieceVerdict } from "@/lib/pieces/verdict";
-import type { CallRules, PieceParsed } from "@/lib/validations/piece";
+import { pieceVerdictOf, type PieceVerdict } from "@/lib/pieces/verdict";
+import { submitRefusal } from "@/lib/pieces/submission-rules";
+import type { PieceParsed } from "@/lib/validations/piece";
 import type { Anthology } from "./anthologies";
 import { findCall, type CallRow } from "./open-call";
 
@@ -34,16 +35,6 @@ export const fileVersionSummary = {
 export type Call = CallRow;
 export type Piece = typeof p.$inferSelect;
 
-export function callRulesOf(
-  call: Pick<Call, "allowedKinds" | "maxRunPages" | "allowedInks">,
-): CallRules {
-  return {
-    allowedKinds: call.allowedKinds,
-    maxRunPages: call.maxRunPages,
-    allowedInks: call.allowedInks,
-  };
-}
-
 /** Pieces a person has in an anthology that count against the call's limit (withdrawn ones do not). */
 export async function countActivePieces(anthologyId: number, userId: string): Promise<number> {
   const [row] = await db
@@ -53,30 +44,6 @@ export async function countActivePieces(anthologyId: number, userId: string): Pr
       and(eq(p.anthologyId, anthologyId), eq(p.contributorId, userId), ne(p.status, "withdrawn")),
     );
   return Number(row?.n ?? 0);
-}
-
-/** Why this person may not start a new piece in this call, or null when they may. */
-export function submitRefusal(
-  role: Role | null,
-  activePieces: number,
-  call: Pick<Call, "piecesPerPerson">,
-): Refusal | null {
-  if (role === "lead" || role === "editor")
-    return new Refusal(
-      403,
-      "You edit this anthology, so you cannot submit to its call. Ask another editor to add your piece, or use a separate contributor account.",
-    );
-  if (role === "finisher")
-    return new Refusal(
-      403,
-      "You are this anthology's finisher; finishers cannot submit to its call.",
-    );
-  if (activePieces >= call.piecesPerPerson)
-    return new Refusal(
-      409,
-      `This call takes ${call.piecesPerPerson} piece${call.piecesPerPerson === 1 ? "" : "s"} per person and you already have ${activePieces}. Withdraw one to send another.`,
-    );
-  return null;
 }
 
 /**
@@ -363,21 +330,6 @@ export async function withdrawPiece(
     });
     return "withdrawn" as const;
   });
-}
-
-/** Worst verdict over the current file of every page; "missing" while a page has no file. */
-export function pieceVerdictOf(pageVerdicts: readonly (string | null)[]): PieceVerdict {
-  let worst: PieceVerdict = "pass";
-  for (const v of pageVerdicts) {
-    const verdict: PieceVerdict =
-      v === null
-        ? "missing"
-        : v === "blocker" || v === "warning" || v === "note" || v === "pass"
-          ? v
-          : "blocker";
-    if (PIECE_VERDICT_RANK[verdict] > PIECE_VERDICT_RANK[worst]) worst = verdict;
-  }
-  return pageVerdicts.length === 0 ? "missing" : worst;
 }
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];

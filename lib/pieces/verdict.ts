@@ -29,3 +29,18 @@ export const PIECE_VERDICT_RANK: Record<PieceVerdict, number> = {
 export function isPieceVerdict(value: string): value is PieceVerdict {
   return (PIECE_VERDICTS as readonly string[]).includes(value);
 }
+
+/** Worst verdict over the current file of every page; "missing" while a page has no file. */
+export function pieceVerdictOf(pageVerdicts: readonly (string | null)[]): PieceVerdict {
+  let worst: PieceVerdict = "pass";
+  for (const v of pageVerdicts) {
+    const verdict: PieceVerdict =
+      v === null
+        ? "missing"
+        : v === "blocker" || v === "warning" || v === "note" || v === "pass"
+          ? v
+          : "blocker";
+    if (PIECE_VERDICT_RANK[verdict] > PIECE_VERDICT_RANK[worst]) worst = verdict;
+  }
+  return pageVerdicts.length === 0 ? "missing" : worst;
+}

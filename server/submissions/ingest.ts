@@ -9,17 +9,16 @@ import { createHash } from "node:crypto";
 import { and, eq, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { Anthology } from "@/db/queries/anthologies";
-import { findCall, refreshPieceVerdict, type Call, type Piece } from "@/db/queries/submissions";
+import { findCall, refreshPieceVerdict } from "@/db/queries/submissions";
 import type { PieceStatus } from "@/lib/domain";
 import { Refusal } from "@/lib/refusal";
 import { env } from "@/lib/env";
 import { specReportMail } from "@/lib/mail/templates/spec-report";
 import { appUrl, sendLoggedMail } from "@/server/mail";
 import { checkArtwork, type SpecReport } from "@/lib/print/check";
-import { specOf, type PrintSpec } from "@/lib/print/spec";
-import { mayUploadFiles, statusAfterNewFile } from "@/lib/pieces/status";
+import { statusAfterNewFile } from "@/lib/pieces/status";
+import { specForPiece, uploadsAllowed, uploadsClosedReason } from "@/lib/pieces/submission-rules";
 import { isPieceVerdict, type PieceVerdict } from "@/lib/pieces/verdict";
-import { isCallOpen } from "@/lib/stages";
 import { maxUploadBytes, readStoredFile } from "@/server/uploads";
 import type { ArtworkUploadInput } from "@/lib/validations/piece";
 import { makeThumbnail } from "./thumbnail";
@@ -27,29 +26,6 @@ import { makeThumbnail } from "./thumbnail";
 const p = schema.pieces;
 const pp = schema.piecePages;
 const fv = schema.fileVersions;
-
-/** The spec one page file is checked against: the anthology's, one page per file, the piece's inks. */
-export function specForPiece(anthology: Anthology, piece: Pick<Piece, "inks">): PrintSpec {
-  return specOf(anthology, { pagesExpected: 1, inks: piece.inks });
-}
-
-/** Whether this piece's files may change now: the call is open, or an editor asked for a fix. */
-export function uploadsAllowed(
-  status: PieceStatus,
-  call: Call | undefined,
-  anthology: Pick<Anthology, "stage">,
-  now = new Date(),
-): boolean {
-  return mayUploadFiles(status, isCallOpen(call ?? null, anthology.stage, now));
-}
-
-/** Why uploads to this piece are closed, in words for the contributor. */
-export function uploadsClosedReason(status: PieceStatus): string {
-  if (status === "withdrawn") return "You withdrew this piece, so it takes no more files.";
-  if (status === "declined")
-    return "This piece was not taken for this issue, so it takes no more files.";
-  return "The call has closed, so files can no longer be changed unless an editor asks you for a fix.";
-}
 
 export type UploadMetadata = {
   pieceId: number;

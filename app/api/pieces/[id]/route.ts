@@ -6,7 +6,7 @@ import {
   withdrawPiece,
 } from "@/db/queries/submissions";
 import { apiRoute, HttpError, readJson, requirePieceViewer } from "@/server/api";
-import { uploadsAllowed } from "@/server/submissions/ingest";
+import { uploadsAllowed } from "@/lib/pieces/submission-rules";
 import { pieceActionSchema } from "@/lib/validations/piece";
 import type {
   AltTextSavedAnswer,

@@ -1,12 +1,6 @@
 import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
-import {
-  callRulesOf,
-  countActivePieces,
-  createPiece,
-  findCall,
-  listOwnPieces,
-  submitRefusal,
-} from "@/db/queries/submissions";
+import { countActivePieces, createPiece, findCall, listOwnPieces } from "@/db/queries/submissions";
+import { callRulesOf, submitRefusal } from "@/lib/pieces/submission-rules";
 import { apiRoute, HttpError, readJson, requireApiAccess, requireApiUser } from "@/server/api";
 
 import { callPhase } from "@/lib/stages";

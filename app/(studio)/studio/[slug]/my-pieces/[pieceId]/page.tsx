@@ -16,7 +16,7 @@ import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/
 import { env } from "@/lib/env";
 import { canMove } from "@/lib/pieces/status";
 import { specOf } from "@/lib/print/spec";
-import { uploadsAllowed, uploadsClosedReason } from "@/server/submissions/ingest";
+import { uploadsAllowed, uploadsClosedReason } from "@/lib/pieces/submission-rules";
 import { AltTextEditor } from "./_components/alt-text-editor";
 import { PageUpload } from "./_components/page-upload";
 import { UseVersionButton } from "./_components/use-version-button";
