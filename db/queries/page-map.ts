@@ -12,6 +12,7 @@ import type { MapPiece, MapSlot, MapState, Proposal } from "@/lib/map/types";
 import { checkedChange } from "@/lib/map-edits/apply";
 import type { MapEventView, MapPayload, MapPieceCard } from "@/lib/map-edits/payload";
 import type { SessionUser } from "@/lib/domain";
+import { personLabel } from "@/lib/people";
 import type { MapChangeRequest } from "@/lib/validations/page-map";
 import type { Anthology } from "./anthologies";
 
@@ -25,7 +26,17 @@ const u = schema.users;
 /* ---------- Reading ---------- */
 
 type PieceRow = MapPiece &
-  MapPieceCard & { contributorId: string; contributorEmail: string | null };
+  Omit<MapPieceCard, "contributorName"> & {
+    contributorId: string;
+    contributorName: string | null;
+    contributorEmail: string | null;
+  };
+
+/** Who is looking at the map: whether they may change it, and see an address in place of a missing name. */
+export interface MapViewer {
+  canEdit: boolean;
+  mayShowEmail: boolean;
+}
 
 /** Accepted pieces, plus any piece still on the map after leaving "accepted" (shown as left out so it can be taken off). */
 async function readPieces(tx: Tx, anthologyId: number): Promise<PieceRow[]> {
@@ -54,7 +65,6 @@ async function readPieces(tx: Tx, anthologyId: number): Promise<PieceRow[]> {
     ...r,
     inks: Array.isArray(r.inks) ? r.inks : [],
     leftOut: r.leftOut || r.status !== "accepted",
-    contributorName: r.contributorName ?? r.contributorEmail ?? "A contributor",
   }));
 }
 
@@ -129,7 +139,12 @@ async function ensureSlots(anthology: Anthology): Promise<void> {
   });
 }
 
-async function listEvents(tx: Tx, anthologyId: number, limit = 40): Promise<MapEventView[]> {
+async function listEvents(
+  tx: Tx,
+  anthologyId: number,
+  mayShowEmail: boolean,
+  limit = 40,
+): Promise<MapEventView[]> {
   const rows = await tx
     .select({
       id: schema.mapEvents.id,
@@ -152,7 +167,10 @@ async function listEvents(tx: Tx, anthologyId: number, limit = 40): Promise<MapE
       mapVersion: r.mapVersion,
       action: r.action,
       summary: typeof detail.summary === "string" ? detail.summary : r.action,
-      actorName: r.actorName ?? r.actorEmail ?? "Someone",
+      actorName: personLabel(
+        { name: r.actorName, email: r.actorEmail },
+        { mayShowEmail, unnamed: "Someone" },
+      ),
       at: r.at.toISOString(),
     };
   });
@@ -170,7 +188,7 @@ function creepFor(anthology: Anthology, state: MapState): number[] {
 async function payloadIn(
   tx: Tx,
   anthologyId: number,
-  canEdit: boolean,
+  { canEdit, mayShowEmail }: MapViewer,
   copies: number,
 ): Promise<MapPayload> {
   const [anthology] = await tx.select().from(a).where(eq(a.id, anthologyId));
@@ -189,11 +207,18 @@ async function payloadIn(
     },
     version: anthology.mapVersion,
     state,
-    cards: pieces.map((x) => ({ id: x.id, contributorName: x.contributorName, status: x.status })),
+    cards: pieces.map((x) => ({
+      id: x.id,
+      contributorName: personLabel(
+        { name: x.contributorName, email: x.contributorEmail },
+        { mayShowEmail },
+      ),
+      status: x.status,
+    })),
     check: checkMap(state),
     passes: countPasses(state, copies),
     creepMm: creepFor(anthology, state),
-    events: await listEvents(tx, anthologyId),
+    events: await listEvents(tx, anthologyId, mayShowEmail),
     canEdit,
   };
 }
@@ -201,10 +226,10 @@ async function payloadIn(
 /** The map as the screen needs it, created from the page count target the first time. */
 export async function loadMap(
   anthology: Anthology,
-  opts: { canEdit: boolean; copies: number },
+  opts: MapViewer & { copies: number },
 ): Promise<MapPayload> {
   await ensureSlots(anthology);
-  return db.transaction((tx) => payloadIn(tx, anthology.id, opts.canEdit, opts.copies));
+  return db.transaction((tx) => payloadIn(tx, anthology.id, opts, opts.copies));
 }
 
 /* ---------- Changing ---------- */
@@ -258,14 +283,15 @@ export async function changeMap(
   anthology: Anthology,
   user: SessionUser,
   request: MapChangeRequest,
-  copies: number,
+  { copies, mayShowEmail }: { copies: number; mayShowEmail: boolean },
 ): Promise<ChangeOutcome> {
+  const viewer: MapViewer = { canEdit: true, mayShowEmail };
   await ensureSlots(anthology);
   return db.transaction(async (tx) => {
     const [row] = await tx.select().from(a).where(eq(a.id, anthology.id)).for("update");
     if (!row) throw new Error(`anthology ${anthology.id} vanished`);
     if (row.mapVersion !== request.version)
-      return { kind: "stale", map: await payloadIn(tx, row.id, true, copies) };
+      return { kind: "stale", map: await payloadIn(tx, row.id, viewer, copies) };
     const slots = await readSlots(tx, row.id, true);
     const state = toState(row, slots, await readPieces(tx, row.id));
     const result = checkedChange(state, request.change);
@@ -300,7 +326,7 @@ export async function changeMap(
     });
     return {
       kind: "saved",
-      map: await payloadIn(tx, row.id, true, copies),
+      map: await payloadIn(tx, row.id, viewer, copies),
       summary: result.summary,
     };
   });

@@ -481,3 +481,62 @@ describe("page notices", () => {
     expect(Number(logged!.n)).toBe(placedOwners.size);
   });
 });
+
+describe("people without a name", () => {
+  // Accounts made by e-mail link have no name until their owner gives one.
+  const unnamedContributor = { id: crypto.randomUUID(), email: uniqueEmail("map-unnamed-artist") };
+  const unnamedEditor = { id: crypto.randomUUID(), email: uniqueEmail("map-unnamed-editor") };
+  const anyAddress = /[^\s"@]+@[^\s"@]+\.[a-z]+/i;
+
+  beforeAll(async () => {
+    await db.insert(schema.users).values([
+      { ...unnamedContributor, name: null },
+      { ...unnamedEditor, name: null },
+    ]);
+    await db.insert(schema.memberships).values([
+      { anthologyId, userId: unnamedContributor.id, role: "contributor" },
+      { anthologyId, userId: unnamedEditor.id, role: "editor" },
+    ]);
+    await db.insert(schema.pieces).values({
+      anthologyId,
+      contributorId: unnamedContributor.id,
+      title: "Untitled Tide Chart",
+      kind: "single",
+      pageCount: 1,
+      inks: ["black"],
+      creditLine: "Anonymous",
+      status: "accepted",
+    });
+    // The unnamed editor makes a change, so the history names them too.
+    authState.session = { user: { ...unnamedEditor, name: null as never } };
+    const locked = await change(await storedVersion(), { op: "lock", page: 2, locked: true });
+    expect(locked.status).toBe(200);
+  });
+
+  afterAll(async () => {
+    await db.delete(schema.pieces).where(eq(schema.pieces.contributorId, unnamedContributor.id));
+    for (const id of [unnamedContributor.id, unnamedEditor.id])
+      await db.delete(schema.users).where(eq(schema.users.id, id));
+  });
+
+  it("shows the finisher no one's e-mail address, on the cards or in the history", async () => {
+    as(people.finisher);
+    const { status, body } = await getMap();
+    expect(status).toBe(200);
+    const card = (body.cards as Json[]).find((c) =>
+      (body.state.pieces as Json[]).some((p) => p.id === c.id && p.title === "Untitled Tide Chart"),
+    );
+    expect(card?.contributorName).toBe("Unnamed contributor");
+    expect((body.events as Json[])[0]?.actorName).not.toMatch(anyAddress);
+    expect(JSON.stringify(body)).not.toMatch(anyAddress);
+  });
+
+  it("still shows editors the address in place of a missing name", async () => {
+    as(people.lead);
+    const { body } = await getMap();
+    expect((body.cards as Json[]).map((c) => c.contributorName)).toContain(
+      unnamedContributor.email,
+    );
+    expect((body.events as Json[])[0]?.actorName).toBe(unnamedEditor.email);
+  });
+});

@@ -11,6 +11,7 @@ export default async function PageMapPage({ params }: { params: Promise<{ slug: 
   const { anthology, role } = await requireAnthologyAccess(slug, "map:view", `/studio/${slug}/map`);
   const initial = await loadMap(anthology, {
     canEdit: can(role, "map:edit"),
+    mayShowEmail: can(role, "contributors:private-data"),
     copies: COPIES_DEFAULT,
   });
   return (

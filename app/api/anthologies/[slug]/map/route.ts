@@ -13,6 +13,7 @@ export const GET = apiRoute(async (request, { params }: Context) => {
   return Response.json(
     (await loadMap(anthology, {
       canEdit: can(role, "map:edit"),
+      mayShowEmail: can(role, "contributors:private-data"),
       copies: readQuery(request, mapQuerySchema).copies,
     })) satisfies MapPayload,
   );
@@ -24,10 +25,13 @@ export const GET = apiRoute(async (request, { params }: Context) => {
  */
 export const POST = apiRoute(async (request, { params }: Context) => {
   const { slug } = await params;
-  const { anthology, user } = await requireApiAccess(slug, "map:edit");
+  const { anthology, user, role } = await requireApiAccess(slug, "map:edit");
   const { copies } = readQuery(request, mapQuerySchema);
   const input = await readJson(request, mapChangeRequestSchema);
-  const outcome = await changeMap(anthology, user, input, copies);
+  const outcome = await changeMap(anthology, user, input, {
+    copies,
+    mayShowEmail: can(role, "contributors:private-data"),
+  });
   if (outcome.kind === "stale") {
     const body: MapRefusalAnswer = {
       error: `Someone else changed the map while you were working (it is now at version ${outcome.map.version}, you had ${input.version}). Your change was not saved; here is the map as it is now.`,

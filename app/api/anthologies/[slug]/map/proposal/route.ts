@@ -1,5 +1,6 @@
 import { loadMap, readMapState } from "@/db/queries/page-map";
 import { apiRoute, readJson, requireApiAccess } from "@/server/api";
+import { can } from "@/lib/auth/policy";
 import { checkMap } from "@/lib/map/check";
 import { countPasses } from "@/lib/map/passes";
 import { proposePlacement } from "@/lib/map/propose";
@@ -12,14 +13,18 @@ import { COPIES_DEFAULT, proposalRequestSchema } from "@/lib/validations/page-ma
  */
 export const POST = apiRoute(async (request, { params }: { params: Promise<{ slug: string }> }) => {
   const { slug } = await params;
-  const { anthology } = await requireApiAccess(slug, "map:edit");
+  const { anthology, role } = await requireApiAccess(slug, "map:edit");
   const input = await readJson(request, proposalRequestSchema);
   const copies = input.copies ?? COPIES_DEFAULT;
   const { version, state } = await readMapState(anthology);
   if (version !== input.version) {
     const body: MapRefusalAnswer = {
       error: `Someone else changed the map (it is now at version ${version}, you had ${input.version}); here is the map as it is now. Ask for a proposal again.`,
-      map: await loadMap(anthology, { canEdit: true, copies }),
+      map: await loadMap(anthology, {
+        canEdit: true,
+        mayShowEmail: can(role, "contributors:private-data"),
+        copies,
+      }),
     };
     return Response.json(body, { status: 409 });
   }
