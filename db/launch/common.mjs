@@ -1,0 +1,21 @@
+// What every launcher step shares: where things are, the log lines and the one error type
+// whose message is shown without a stack.
+
+import path from "node:path";
+
+import * as mariadb from "../mariadb.mjs";
+
+export const ROOT = mariadb.ROOT;
+export const DATA = path.join(ROOT, ".data");
+export const RESULTS = path.join(DATA, "test-results");
+const T0 = Date.now();
+export const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
+
+/** A failure the launcher explains in its own words. */
+export class Fatal extends Error {}
+
+export const secs = () => ((Date.now() - T0) / 1000).toFixed(1).padStart(5);
+export const step = (msg) => console.log(`[quireline ${secs()}s] ${msg}`);
+export const note = (msg) => console.log(`                  ${msg}`);
+export const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
+export const rel = (p) => path.relative(ROOT, p) || ".";

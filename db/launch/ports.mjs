@@ -1,0 +1,72 @@
+// The ports each mode uses, and a clear message naming whoever holds one already.
+
+import { spawnSync } from "node:child_process";
+import fs from "node:fs";
+import net from "node:net";
+
+import { Fatal } from "./common.mjs";
+
+export const PORTS = {
+  start: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
+  dev: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
+  test: { app: 3100, upload: 4690, smtp: 4625, outbox: 4626 },
+};
+const PORT_OWNERS = {
+  3000: "the web app of a Quireline `npm start` or `npm run dev`",
+  3100: "the web app of a Quireline `npm test`",
+  4590: "the upload fake of a Quireline `npm start`",
+  4525: "the SMTP sink of a Quireline `npm start`",
+  4526: "the outbox API of a Quireline `npm start`",
+  4690: "the upload fake of a Quireline `npm test`",
+  4625: "the SMTP sink of a Quireline `npm test`",
+  4626: "the outbox API of a Quireline `npm test`",
+};
+
+function portFree(port, host) {
+  return new Promise((resolve) => {
+    const server = net.createServer();
+    server.once("error", (err) =>
+      resolve(err.code === "EADDRNOTAVAIL" || err.code === "EAFNOSUPPORT"),
+    );
+    server.listen({ port, host, exclusive: true }, () => server.close(() => resolve(true)));
+  });
+}
+
+function describeHolder(port) {
+  let holder = "";
+  const r = spawnSync("ss", ["-Hltnp", `sport = :${port}`], { encoding: "utf8" });
+  const pid = /pid=(\d+)/.exec(r.stdout ?? "")?.[1];
+  if (pid) {
+    let cmdline = "";
+    try {
+      cmdline = fs
+        .readFileSync(`/proc/${pid}/cmdline`, "utf8")
+        .split("\0")
+        .filter(Boolean)
+        .join(" ");
+    } catch {
+      // the process went away or is not ours to read
+    }
+    holder = ` by pid ${pid}${cmdline ? ` (${cmdline.slice(0, 160)})` : ""}`;
+  }
+  const ours = !holder || /next-server|next (start|dev)|storage-fake|launch\.mjs/.test(holder);
+  const guess =
+    ours && PORT_OWNERS[port]
+      ? `It is probably ${PORT_OWNERS[port]} that is still running`
+      : "It is not part of Quireline";
+  return { holder, guess, pid };
+}
+
+export async function checkPorts(ports) {
+  const labels = { app: "web app", upload: "upload fake", smtp: "SMTP sink", outbox: "outbox API" };
+  const problems = [];
+  for (const [key, port] of Object.entries(ports)) {
+    if ((await portFree(port, "127.0.0.1")) && (await portFree(port, "::1"))) continue;
+    const { holder, guess, pid } = describeHolder(port);
+    problems.push(
+      `port ${port} (${labels[key]}) is already in use${holder}.` +
+        `\n  ${guess}; stop it (Ctrl-C in its terminal${pid ? `, or kill ${pid}` : ""}) and try again.`,
+    );
+  }
+  if (problems.length) throw new Fatal(problems.join("\n"));
+}
