@@ -117,5 +117,12 @@ export function printWelcome(ports) {
     for (const r of rows.slice(1)) console.log(fmt(r));
   }
   console.log("");
+  console.log(`Mail is caught by a local sink; signed in, read yours at ${url}/dev/outbox.`);
+  // Said plainly because the outbox holds sign-in links: it is a local tool, not a mail service.
+  console.log(
+    "The mail sink and its /dev/outbox page are for local use only: they show only the signed-in\n" +
+      "person's own mail, and nothing is served when the app is not bound to loopback (127.0.0.1).",
+  );
+  console.log("");
   console.log("Press Ctrl-C to stop.");
 }
