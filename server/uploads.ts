@@ -7,7 +7,7 @@ import type { NextRequest } from "next/server";
 import { createRouteHandler, createUploadthing } from "uploadthing/next";
 import { UploadThingError, UTApi, UTFile, type FileRouter } from "uploadthing/server";
 import { env } from "@/lib/env";
-import type { apiRoute } from "@/server/api";
+import { apiRoute } from "@/server/api";
 
 export { createUploadthing, UploadThingError };
 export type { FileRouter };
@@ -47,18 +47,11 @@ function sdkConfig() {
 export function uploadRouteHandlers<R extends FileRouter>(router: R) {
   let handlers: ReturnType<typeof createRouteHandler> | undefined;
   const get = () => (handlers ??= createRouteHandler({ router, config: sdkConfig() }));
-  // server/api is loaded with the first upload start: it reads the session through Next's
-  // navigation module, which the demo seed (storing files through this module) cannot load.
-  let uploadPost: ReturnType<typeof apiRoute<undefined>> | undefined;
+  const uploadPost = apiRoute<undefined>(async (request) => get().POST(request as NextRequest));
   return {
     GET: (request: NextRequest) => get().GET(request),
     // Upload starts change state: through apiRoute, a page of another site may not start one.
-    POST: async (request: NextRequest) => {
-      uploadPost ??= (await import("@/server/api")).apiRoute<undefined>(async (r) =>
-        get().POST(r as NextRequest),
-      );
-      return uploadPost(request, undefined);
-    },
+    POST: (request: NextRequest) => uploadPost(request, undefined),
   };
 }
 
