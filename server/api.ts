@@ -8,6 +8,7 @@ import type { Role, SessionUser } from "@/lib/domain";
 import { Refusal } from "@/lib/refusal";
 import { isSameSiteRequest } from "@/lib/request-origin";
 import { env } from "@/lib/env";
+import { parseId } from "@/lib/ids";
 import { currentUser, type AnthologyAccess } from "@/server/auth/guard";
 
 /**
@@ -106,8 +107,8 @@ export async function requirePieceViewer(idParamValue: string) {
 
 /** A numeric id from a route segment, or a 404 naming what was looked for. */
 export function idParam(value: string, what: string): number {
-  const id = /^\d{1,15}$/.test(value) ? Number(value) : NaN;
-  if (!Number.isSafeInteger(id) || id <= 0) throw new HttpError(404, `There is no such ${what}.`);
+  const id = parseId(value);
+  if (id === null) throw new HttpError(404, `There is no such ${what}.`);
   return id;
 }
 

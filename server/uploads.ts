@@ -7,7 +7,6 @@ import type { NextRequest } from "next/server";
 import { createRouteHandler, createUploadthing } from "uploadthing/next";
 import { UploadThingError, UTApi, UTFile, type FileRouter } from "uploadthing/server";
 import { env } from "@/lib/env";
-import { apiRoute } from "@/server/api";
 
 export { createUploadthing, UploadThingError };
 export type { FileRouter };
@@ -47,11 +46,9 @@ function sdkConfig() {
 export function uploadRouteHandlers<R extends FileRouter>(router: R) {
   let handlers: ReturnType<typeof createRouteHandler> | undefined;
   const get = () => (handlers ??= createRouteHandler({ router, config: sdkConfig() }));
-  const uploadPost = apiRoute<undefined>(async (request) => get().POST(request as NextRequest));
   return {
     GET: (request: NextRequest) => get().GET(request),
-    // Upload starts change state: through apiRoute, a page of another site may not start one.
-    POST: (request: NextRequest) => uploadPost(request, undefined),
+    POST: (request: NextRequest) => get().POST(request),
   };
 }
 
@@ -105,6 +102,15 @@ export async function readStoredFile(
     chunks.push(Buffer.from(value));
   }
   return Buffer.concat(chunks);
+}
+
+/**
+ * A short-lived signed address the file host serves a stored file from, for reading an upload
+ * back after the upload itself (the re-check after a spec change). Signed by the SDK itself
+ * (UPLOADTHING_UFS_HOST, UPLOADTHING_UFS_APP_ID_LOCATION), so private files read too.
+ */
+export async function storedFileUrl(key: string): Promise<string> {
+  return (await utapi().generateSignedURL(key, { expiresIn: 600 })).ufsUrl;
 }
 
 /** Deletes stored files; failures are logged, never thrown (used when a file must not be kept). */

@@ -37,7 +37,7 @@ describe("uploadsAllowed", () => {
   it("is open while the call is, and for a fix an editor asked for afterwards", () => {
     expect(uploadsAllowed("awaiting-review", call, open, during)).toBe(true);
     expect(uploadsAllowed("awaiting-review", call, open, after)).toBe(false);
-    expect(uploadsAllowed("fix-requested", call, { stage: "reviewing" }, after)).toBe(true);
+    expect(uploadsAllowed("fix-requested", call, { stage: "call-closed" }, after)).toBe(true);
   });
   it("is closed for withdrawn and declined pieces, and says why", () => {
     expect(uploadsAllowed("withdrawn", call, open, during)).toBe(false);

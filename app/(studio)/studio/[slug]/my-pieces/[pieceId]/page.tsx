@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { parseId } from "@/lib/ids";
 import { notFound } from "next/navigation";
 import { PieceStatusBadge } from "@/components/piece-status-badge";
 import { SpecOverlay } from "@/components/spec-overlay";
@@ -42,8 +43,8 @@ export default async function MyPiecePage({ params }: Props) {
     "pieces:view-own",
     `/studio/${slug}/my-pieces/${pieceId}`,
   );
-  const id = /^\d{1,15}$/.test(pieceId) ? Number(pieceId) : NaN;
-  const detail = Number.isSafeInteger(id) ? await getPieceDetail(id) : undefined;
+  const id = parseId(pieceId);
+  const detail = id === null ? undefined : await getPieceDetail(id);
   if (
     !detail ||
     detail.piece.contributorId !== user.id ||

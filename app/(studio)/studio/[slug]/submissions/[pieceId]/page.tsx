@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { parseId } from "@/lib/ids";
 import { notFound } from "next/navigation";
 import { PieceStatusBadge } from "@/components/piece-status-badge";
 import { SpecOverlay } from "@/components/spec-overlay";
@@ -40,8 +41,8 @@ export default async function SubmissionPage({
     "pieces:review",
     `/studio/${slug}/submissions/${pieceId}`,
   );
-  const id = /^\d{1,15}$/.test(pieceId) ? Number(pieceId) : NaN;
-  const detail = Number.isSafeInteger(id) ? await getPieceForReview(anthology.id, id) : undefined;
+  const id = parseId(pieceId);
+  const detail = id === null ? undefined : await getPieceForReview(anthology.id, id);
   if (!detail) notFound();
   const { piece, contributor, pages, events } = detail;
   const spec = specOf(anthology);
