@@ -2,7 +2,7 @@ import { defineConfig, devices } from "@playwright/test";
 
 const results = ".data/test-results";
 
-// The app, the database and the fakes are started by `npm test` (db/launch.mjs), not here.
+// The app, the database and the fakes are started by `npm test` (scripts/launch.mjs), not here.
 export default defineConfig({
   testDir: "tests/e2e",
   testMatch: "**/*.spec.ts",

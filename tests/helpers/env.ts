@@ -1,4 +1,4 @@
-// Where the running test stack is. `npm test` (db/launch.mjs) sets all of these; the defaults
+// Where the running test stack is. `npm test` (scripts/launch.mjs) sets all of these; the defaults
 // are the test ports from DEVELOPERS.md, so a single file can also run against a stack that
 // `npm test` left described in the environment.
 

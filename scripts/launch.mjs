@@ -1,8 +1,8 @@
 // What `npm start`, `npm run dev` and `npm test` run.
 //
-//   node db/launch.mjs start   build, then serve at http://localhost:3000 with the local fakes
-//   node db/launch.mjs dev     the same with `next dev` (no build)
-//   node db/launch.mjs test    fresh test database, build, serve on 3100, run vitest and Playwright
+//   node scripts/launch.mjs start   build, then serve at http://localhost:3000 with the local fakes
+//   node scripts/launch.mjs dev     the same with `next dev` (no build)
+//   node scripts/launch.mjs test    fresh test database, build, serve on 3100, run vitest and Playwright
 //
 // Plain Node ESM with no dependencies: it installs node_modules itself before using any package.
 // The steps live in launch/: processes.mjs (process groups), shutdown.mjs, install.mjs,
@@ -27,7 +27,7 @@ handleSignals();
 async function main() {
   const mode = process.argv[2];
   if (!PORTS[mode]) {
-    console.error("usage: node db/launch.mjs start|dev|test [-- test files]");
+    console.error("usage: node scripts/launch.mjs start|dev|test [-- test files]");
     return 2;
   }
   const extra = process.argv.slice(3).filter((a, i) => !(i === 0 && a === "--"));

@@ -3,7 +3,7 @@
 import fs from "node:fs";
 import path from "node:path";
 
-import { Fatal, note, rel, RESULTS, ROOT, sleep, step } from "./common.mjs";
+import { APP_BIND_HOST, Fatal, note, rel, RESULTS, ROOT, sleep, step } from "./common.mjs";
 import { launch, runToEnd } from "./processes.mjs";
 
 function nextBin() {
@@ -25,8 +25,8 @@ export async function buildApp(env) {
 export async function startApp(mode, ports, env) {
   const args =
     mode === "dev"
-      ? ["dev", "-H", "127.0.0.1", "-p", String(ports.app)]
-      : ["start", "-H", "127.0.0.1", "-p", String(ports.app)];
+      ? ["dev", "-H", APP_BIND_HOST, "-p", String(ports.app)]
+      : ["start", "-H", APP_BIND_HOST, "-p", String(ports.app)];
   step(`starting the app: next ${args.join(" ")}`);
   const logFile = mode === "test" ? path.join(RESULTS, "app.log") : null;
   let stdio = "inherit";

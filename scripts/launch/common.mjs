@@ -7,6 +7,8 @@ import * as mariadb from "../mariadb.mjs";
 
 export const ROOT = mariadb.ROOT;
 export const DATA = path.join(ROOT, ".data");
+/** The app listens on loopback only: it is a local workshop tool, and /dev/outbox depends on it. */
+export const APP_BIND_HOST = "127.0.0.1";
 export const RESULTS = path.join(DATA, "test-results");
 const T0 = Date.now();
 export const isRoot = typeof process.getuid === "function" && process.getuid() === 0;

@@ -5,7 +5,7 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 
-import { DATA } from "./common.mjs";
+import { APP_BIND_HOST, DATA } from "./common.mjs";
 import { db } from "./database.mjs";
 
 // The UploadThing token the app and the upload fake share (see the uploads brief, section a).
@@ -45,6 +45,8 @@ export function appEnv(mode, ports, databaseUrl, secret) {
     SMTP_PORT: String(ports.smtp),
     MAIL_FROM: "Quireline <studio@quireline.test>",
     OUTBOX_URL: `http://127.0.0.1:${ports.outbox}`,
+    // Where next start/dev listens (app.mjs); /dev/outbox is served only on loopback.
+    APP_BIND_HOST: APP_BIND_HOST,
     UPLOADTHING_TOKEN: FAKE_UPLOADTHING_TOKEN,
     UPLOADTHING_INGEST_URL: `http://127.0.0.1:${ports.upload}`,
     UPLOADTHING_API_URL: `http://127.0.0.1:${ports.upload}`,
