@@ -3,17 +3,23 @@ import { and, asc, eq } from "drizzle-orm";
 import { db, schema } from "@/db";
 import { roleChangeRefusal, type RoleChangeRefusal } from "@/lib/auth/policy";
 import type { Role } from "@/lib/domain";
+import { isSlug } from "@/lib/slug";
 import { bumpSessionVersion } from "./users";
 
 export type Anthology = typeof schema.anthologies.$inferSelect;
 
+/**
+ * The anthology at exactly this slug. The column's collation ignores case and trailing spaces,
+ * so anything not shaped like a slug is refused first and the row's slug is compared as written.
+ */
 export async function findAnthologyBySlug(slug: string): Promise<Anthology | undefined> {
+  if (!isSlug(slug)) return undefined;
   const [row] = await db
     .select()
     .from(schema.anthologies)
     .where(eq(schema.anthologies.slug, slug))
     .limit(1);
-  return row;
+  return row?.slug === slug ? row : undefined;
 }
 
 export async function findRole(anthologyId: number, userId: string): Promise<Role | null> {

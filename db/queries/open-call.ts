@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, count, eq, gt, inArray, isNotNull } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { AnthologyStage } from "@/lib/domain";
+import { isSlug } from "@/lib/slug";
 import type { CallRecord } from "@/lib/validations/call";
 import type { Anthology } from "./anthologies";
 
@@ -52,6 +53,8 @@ export async function saveCall(anthologyId: number, record: CallRecord): Promise
 export async function findPublishedCall(
   slug: string,
 ): Promise<{ anthology: Anthology; call: CallRow } | undefined> {
+  // Exactly this slug: see findAnthologyBySlug for why the collation is not trusted.
+  if (!isSlug(slug)) return undefined;
   const [row] = await db
     .select({ anthology: schema.anthologies, call: schema.calls })
     .from(schema.anthologies)
@@ -64,7 +67,7 @@ export async function findPublishedCall(
       ),
     )
     .limit(1);
-  return row;
+  return row?.anthology.slug === slug ? row : undefined;
 }
 
 const PUBLISHED_STAGES: AnthologyStage[] = [
