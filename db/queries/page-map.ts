@@ -235,7 +235,7 @@ export async function loadMap(
 /* ---------- Changing ---------- */
 
 export type ChangeOutcome =
-  | { kind: "saved"; map: MapPayload; summary: string }
+  | { kind: "saved"; map: MapPayload; summary: string; changed: boolean }
   | { kind: "stale"; map: MapPayload }
   | { kind: "refused"; reason: string; pages: number[]; pieceIds: number[] };
 
@@ -302,6 +302,14 @@ export async function changeMap(
         pages: result.pages,
         pieceIds: result.pieceIds,
       };
+    // A change that leaves every page as it was saves nothing: no new version, no history entry.
+    if (!result.changed)
+      return {
+        kind: "saved",
+        map: await payloadIn(tx, row.id, viewer, copies),
+        summary: result.summary,
+        changed: false,
+      };
     await writeSlots(tx, row.id, slots, result.state.slots);
     const version = row.mapVersion + 1;
     await tx
@@ -328,6 +336,7 @@ export async function changeMap(
       kind: "saved",
       map: await payloadIn(tx, row.id, viewer, copies),
       summary: result.summary,
+      changed: true,
     };
   });
 }

@@ -11,11 +11,12 @@ import {
   resizeMap,
   setReservation,
 } from "@/lib/map/edit";
-import { pagesInWords, pieceName, piecePages } from "@/lib/map/state";
+import { emptySlot, pagesInWords, pieceName, piecePages, slotsByPage } from "@/lib/map/state";
 import type {
   EditRefusal,
   EditResult,
   MapCheck,
+  MapSlot,
   MapState,
   RuleCode,
   RuleMessage,
@@ -129,8 +130,35 @@ export function newBlockingErrors(before: MapCheck, after: MapCheck): RuleMessag
   );
 }
 
+/**
+ * True when `after` has the same pages as `before`, each kept for the same thing, holding the
+ * same page of the same piece and locked the same way: a change that leaves the map as it was.
+ * A page without a slot counts as an empty, unlocked one.
+ */
+export function leavesMapAsItWas(before: MapState, after: MapState): boolean {
+  if (before.pageCount !== after.pageCount) return false;
+  const was = slotsByPage(before);
+  const now = slotsByPage(after);
+  const same = (x: MapSlot, y: MapSlot) =>
+    x.reservation === y.reservation &&
+    x.pieceId === y.pieceId &&
+    x.piecePageIndex === y.piecePageIndex &&
+    x.locked === y.locked;
+  for (let page = 1; page <= before.pageCount; page++)
+    if (!same(was[page] ?? emptySlot(page), now[page] ?? emptySlot(page))) return false;
+  return true;
+}
+
 export type CheckedChange =
-  | { ok: true; state: MapState; check: MapCheck; changedPages: number[]; summary: string }
+  | {
+      ok: true;
+      state: MapState;
+      check: MapCheck;
+      changedPages: number[];
+      summary: string;
+      /** False when the change leaves the map as it was: nothing to save, no new version. */
+      changed: boolean;
+    }
   | { ok: false; reason: string; pages: number[]; pieceIds: number[] };
 
 /** Applies a change and the save rule: refused when the engine refuses or the result has new blocking errors. */
@@ -138,6 +166,15 @@ export function checkedChange(state: MapState, change: MapChange): CheckedChange
   const result = applyChange(state, change);
   if (!result.ok)
     return { ok: false, reason: result.reason, pages: result.pages, pieceIds: result.pieceIds };
+  if (leavesMapAsItWas(state, result.state))
+    return {
+      ok: true,
+      state,
+      check: checkMap(state),
+      changedPages: [],
+      summary: describeNoChange(state, change),
+      changed: false,
+    };
   const after = checkMap(result.state);
   const blocking = newBlockingErrors(checkMap(state), after);
   if (blocking.length > 0) {
@@ -154,7 +191,37 @@ export function checkedChange(state: MapState, change: MapChange): CheckedChange
     check: after,
     changedPages: result.changedPages,
     summary: describeChange(state, result.state, change),
+    changed: true,
   };
+}
+
+/** The answer's line for a change that leaves the map as it was. */
+export function describeNoChange(state: MapState, change: MapChange): string {
+  const name = (id: number) =>
+    pieceName(
+      state.pieces.find((p) => p.id === id),
+      id,
+    );
+  const pagesOf = (id: number) => (piecePages(state).get(id) ?? []).map((w) => w.page);
+  const why = (() => {
+    switch (change.op) {
+      case "place":
+      case "move":
+        return `${name(change.pieceId)} is already on ${pagesInWords(pagesOf(change.pieceId))}.`;
+      case "reserve":
+        return change.reservation === null
+          ? `page ${change.page} is already free for pieces.`
+          : `page ${change.page} is already kept for ${RESERVATION_PHRASES[change.reservation]}.`;
+      case "lock":
+        return `page ${change.page} is already ${change.locked ? "locked" : "unlocked"}.`;
+      case "apply-proposal":
+        return "every piece in the proposal is already where it proposes.";
+      case "remove":
+      case "resize":
+        return "the map is as it was.";
+    }
+  })();
+  return `Nothing changed: ${why}`;
 }
 
 /** One line for the history panel: who did what, in the map's own words. */

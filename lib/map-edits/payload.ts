@@ -39,9 +39,14 @@ export interface MapPayload {
   canEdit: boolean;
 }
 
-/** A saved change: the fresh map and the one-line summary written to the history. */
+/**
+ * A saved change: the fresh map and the one-line summary written to the history. A change that
+ * left the map as it was (`changed: false`) saved nothing: same version, no history entry, and a
+ * summary that says so.
+ */
 export interface MapChangeAnswer extends MapPayload {
   summary: string;
+  changed: boolean;
 }
 
 /** A refused change: why, the pages and pieces concerned; with 409 also the fresh map. */

@@ -132,6 +132,12 @@ export function placePiece(state: MapState, pieceId: number, startPage: number):
       [pieceId],
     );
   const where = piecePages(state).get(pieceId);
+  // Placed again exactly where it already is: nothing to do, and nothing refused.
+  const alreadyThere =
+    where !== undefined &&
+    where.length === pieceLength(piece) &&
+    where.every((w, i) => w.page === startPage + i && w.index === i + 1);
+  if (alreadyThere) return done({ ...state, slots: normalisedSlots(state) }, []);
   if (where && where.length)
     return refuse(
       "piece-already-placed",

@@ -540,3 +540,56 @@ describe("people without a name", () => {
     expect((body.events as Json[])[0]?.actorName).toBe(unnamedEditor.email);
   });
 });
+
+describe("a change that leaves the map as it was", () => {
+  async function eventCount(): Promise<number> {
+    const [row] = await db
+      .select({ n: sql<number>`count(*)` })
+      .from(schema.mapEvents)
+      .where(eq(schema.mapEvents.anthologyId, anthologyId));
+    return Number(row!.n);
+  }
+
+  it("made twice, raises the version once and writes one history entry", async () => {
+    as(people.lead);
+    const start = await storedVersion();
+    const events = await eventCount();
+    const first = await change(start, { op: "lock", page: 3, locked: true });
+    expect(first.status).toBe(200);
+    expect(first.body.version).toBe(start + 1);
+    const again = await change(start + 1, { op: "lock", page: 3, locked: true });
+    expect(again.status).toBe(200);
+    expect(again.body.version).toBe(start + 1);
+    expect(again.body.summary).toMatch(/^Nothing changed/);
+    expect(again.body.state.slots.find((s: Json) => s.page === 3).locked).toBe(true);
+    expect(await storedVersion()).toBe(start + 1);
+    expect(await eventCount()).toBe(events + 1);
+    expect((again.body.events as Json[]).filter((e) => e.mapVersion === start + 1)).toHaveLength(1);
+  });
+
+  it("saves nothing for a piece placed or moved where it already is, an unlocked page unlocked, a page kept for what it is kept for", async () => {
+    as(people.lead);
+    const { body } = await getMap();
+    const version = body.version as number;
+    const slots = body.state.slots as Json[];
+    const lockedPieces = new Set(slots.filter((s) => s.locked).map((s) => s.pieceId));
+    const start = slots.find(
+      (s) => s.pieceId !== null && s.piecePageIndex === 1 && !lockedPieces.has(s.pieceId),
+    )!;
+    const unlocked = slots.find((s) => !s.locked)!;
+    const events = await eventCount();
+    for (const same of [
+      { op: "place", pieceId: start.pieceId, startPage: start.page },
+      { op: "move", pieceId: start.pieceId, startPage: start.page },
+      { op: "lock", page: unlocked.page, locked: false },
+      { op: "reserve", page: 1, reservation: "cover" },
+    ]) {
+      const answer = await change(version, same);
+      expect(answer.status, JSON.stringify(same)).toBe(200);
+      expect(answer.body.version, JSON.stringify(same)).toBe(version);
+      expect(answer.body.summary, JSON.stringify(same)).toMatch(/^Nothing changed/);
+    }
+    expect(await storedVersion()).toBe(version);
+    expect(await eventCount()).toBe(events);
+  });
+});

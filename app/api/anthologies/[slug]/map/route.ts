@@ -47,6 +47,10 @@ export const POST = apiRoute(async (request, { params }: Context) => {
     };
     return Response.json(body, { status: 422 });
   }
-  const body: MapChangeAnswer = { ...outcome.map, summary: outcome.summary };
+  const body: MapChangeAnswer = {
+    ...outcome.map,
+    summary: outcome.summary,
+    changed: outcome.changed,
+  };
   return Response.json(body);
 });

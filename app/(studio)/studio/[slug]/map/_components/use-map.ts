@@ -71,7 +71,11 @@ export function useMapChanges(slug: string) {
           });
           confirmed.current = body;
           queryClient.setQueryData<MapPayload>(mapKey(slug), body);
-          if (!opts.quiet) setFeedback({ tone: "info", text: `Saved. ${body.summary}` });
+          if (!opts.quiet)
+            setFeedback({
+              tone: "info",
+              text: body.changed ? `Saved. ${body.summary}` : body.summary,
+            });
           return true;
         } catch (error) {
           if (error instanceof ApiError && error.status >= 400) {
