@@ -179,3 +179,80 @@ test("a contributor signs up from an open call, uploads a page without bleed, fi
   await expect(page.getByTestId("my-piece")).toContainText("1 of 1 file uploaded");
   await context.close();
 });
+
+test("a file chosen before the uploader is ready waits for it, then is sent and checked", async ({
+  browser,
+}) => {
+  test.setTimeout(120_000);
+  const odile = demoAccount("odile");
+  const editor = await browser.newContext();
+  const editorPage = await editor.newPage();
+  await signInWithPassword(editorPage, odile.email, odile.password);
+  const slug = await openFreshCall(editorPage.request);
+  await editor.close();
+
+  const imke = demoAccount("imke");
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  await signInWithPassword(page, imke.email, imke.password);
+  const { url } = await json(page.request, "POST", `/api/anthologies/${slug}/pieces`, {
+    title: "Moth Lantern",
+    kind: "single",
+    pageCount: 1,
+    inks: ["black"],
+    creditLine: "Imke Sallow",
+  });
+
+  // Hold back the page's scripts (so it is not live yet) and the uploader's route settings
+  // (GET /api/uploadthing) until the test lets each go. Routing also turns the HTTP cache off.
+  const hold = () => {
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    return { held, release };
+  };
+  const scripts = hold();
+  const settings = hold();
+  await page.route(
+    (address) =>
+      address.pathname.startsWith("/_next/static/chunks/") && address.pathname.endsWith(".js"),
+    async (route) => {
+      await scripts.held;
+      await route.fallback();
+    },
+  );
+  await page.route(
+    (address) => address.pathname === "/api/uploadthing" && address.search === "",
+    async (route) => {
+      if (route.request().method() !== "GET") return route.fallback();
+      await settings.held;
+      await route.fallback();
+    },
+  );
+
+  await page.goto(url, { waitUntil: "commit" });
+  const input = page.getByTestId("upload-input-1");
+  // As drawn by the server the control is off and says why.
+  await expect(input).toBeDisabled();
+  await expect(page.getByTestId("upload-waiting-1")).toContainText("Getting the uploader ready");
+  // A file lands in the input all the same (a browser may take it before the page is live).
+  await input.setInputFiles(await pagePng("moth-with-bleed.png", 1725, 2625));
+
+  scripts.release();
+  // Live, still waiting for the settings: the file is held, and the control takes nothing more.
+  await expect(page.getByTestId("upload-waiting-1")).toContainText(
+    "“moth-with-bleed.png” will be sent as soon as it is.",
+  );
+  await expect(input).toBeDisabled();
+
+  settings.release();
+  // Once the uploader is ready the held file is sent, checked and its outcome shown.
+  await expect(page.getByTestId("upload-outcome-1")).toContainText("Version 1 checked.", {
+    timeout: 30_000,
+  });
+  await expect(page.getByTestId("report-1")).toHaveAttribute("data-verdict", "pass", {
+    timeout: 30_000,
+  });
+  await expect(page.getByTestId("upload-waiting-1")).toHaveCount(0);
+  await expect(input).toBeEnabled();
+  await context.close();
+});
