@@ -1,11 +1,9 @@
 import "server-only";
 import { and, asc, desc, eq, gt, inArray, or, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
-import { padToMultipleOf4 } from "@/lib/print/imposition";
-import { creepPerSheetMm, sheetCalipersMm } from "@/lib/print/creep";
-import { defaultCaliperMm } from "@/lib/print/paper";
+import { bookletCreepMm } from "@/lib/print/creep";
 import { checkMap } from "@/lib/map/check";
-import { sheetSides } from "@/lib/map/layout";
+import { sheetSides, startingPageCount } from "@/lib/map/layout";
 import { countPasses } from "@/lib/map/passes";
 import { piecePages } from "@/lib/map/state";
 import type { MapPiece, MapSlot, MapState, Proposal } from "@/lib/map/types";
@@ -103,15 +101,6 @@ function toState(anthology: Anthology, slots: MapSlot[], pieces: PieceRow[]): Ma
   };
 }
 
-/** The page count a new map starts with: the target, padded to whole sheets for a saddle stitch. */
-export function startingPageCount(
-  anthology: Pick<Anthology, "binding" | "pageCountTarget">,
-): number {
-  return anthology.binding === "saddle-stitch"
-    ? padToMultipleOf4(anthology.pageCountTarget).pages
-    : anthology.pageCountTarget;
-}
-
 /** Creates the slots the first time the map is opened: one per page, the front and back covers kept for the cover. */
 async function ensureSlots(anthology: Anthology): Promise<void> {
   const [existing] = await db
@@ -176,15 +165,6 @@ async function listEvents(
   });
 }
 
-function creepFor(anthology: Anthology, state: MapState): number[] {
-  const sheets = sheetSides(state.pageCount, state.binding).sheets.length;
-  const coverCaliper =
-    anthology.coverStock === "separate" && anthology.coverPaperGsm
-      ? defaultCaliperMm(anthology.coverPaperGsm)
-      : undefined;
-  return creepPerSheetMm(sheets, sheetCalipersMm(sheets, anthology.paperCaliperMm, coverCaliper));
-}
-
 async function payloadIn(
   tx: Tx,
   anthologyId: number,
@@ -217,7 +197,7 @@ async function payloadIn(
     })),
     check: checkMap(state),
     passes: countPasses(state, copies),
-    creepMm: creepFor(anthology, state),
+    creepMm: bookletCreepMm(sheetSides(state.pageCount, state.binding).sheets.length, anthology),
     events: await listEvents(tx, anthologyId, mayShowEmail),
     canEdit,
   };

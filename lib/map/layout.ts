@@ -129,3 +129,13 @@ export function sheetByPage(plan: SheetPlan): Int32Array {
       if (p <= plan.laidOutPages) out[p] = s.sheet;
   return out;
 }
+
+/** The page count a new map starts with: the target, padded to whole sheets for a saddle stitch. */
+export function startingPageCount(anthology: {
+  binding: Binding;
+  pageCountTarget: number;
+}): number {
+  return anthology.binding === "saddle-stitch"
+    ? padToMultipleOf4(anthology.pageCountTarget).pages
+    : anthology.pageCountTarget;
+}

@@ -11,6 +11,7 @@
  *   radius, giving (π/2)·Σ outer calipers, ≈ 1.571·(S−1)·t for one stock.
  */
 import { locatePage, type SheetHalf, type SheetSide } from "./imposition";
+import { defaultCaliperMm } from "./paper";
 
 export type CreepModel = "linear" | "round-fold";
 
@@ -47,6 +48,35 @@ export function sheetCalipersMm(
   return Array.from({ length: sheets }, (_, i) =>
     i === 0 && coverCaliperMm !== undefined ? coverCaliperMm : textCaliperMm,
   );
+}
+
+/** The stock an anthology's booklet is made of, as far as creep is concerned. */
+export interface BookletStock {
+  /** The text paper's caliper, measured or defaulted from its weight. */
+  paperCaliperMm: number;
+  coverStock: "self" | "separate";
+  /** A separate cover's weight; its caliper is defaulted from it (lib/print/paper.ts). */
+  coverPaperGsm: number | null;
+}
+
+/** The model Quireline uses for creep: linear push-out (see the module comment). */
+export const BOOKLET_CREEP_MODEL: CreepModel = "linear";
+
+/**
+ * Which caliper each sheet uses, outermost first: the text paper's, except the outer sheet when
+ * the cover is a separate stock (its caliper from its weight at the default density).
+ */
+export function bookletCalipersMm(sheets: number, stock: BookletStock): number[] {
+  const coverCaliper =
+    stock.coverStock === "separate" && stock.coverPaperGsm
+      ? defaultCaliperMm(stock.coverPaperGsm)
+      : undefined;
+  return sheetCalipersMm(sheets, stock.paperCaliperMm, coverCaliper);
+}
+
+/** Push-out of every sheet of the booklet, outermost first, with its calipers and Quireline's model. */
+export function bookletCreepMm(sheets: number, stock: BookletStock): number[] {
+  return creepPerSheetMm(sheets, bookletCalipersMm(sheets, stock), BOOKLET_CREEP_MODEL);
 }
 
 /** Thickness of the closed booklet at the fore-edge: two leaves per sheet. */

@@ -1,5 +1,13 @@
 import { describe, expect, it } from "vitest";
-import { closedThicknessMm, creepPerSheetMm, pageShifts, sheetCalipersMm } from "@/lib/print/creep";
+import {
+  bookletCalipersMm,
+  bookletCreepMm,
+  closedThicknessMm,
+  creepPerSheetMm,
+  pageShifts,
+  sheetCalipersMm,
+} from "@/lib/print/creep";
+import { defaultCaliperMm } from "@/lib/print/paper";
 
 // Worked creep values. Linear model: common practice, no source; round-fold model: derived geometry.
 // Caliper 0.1 mm: copy paper is about 0.004 in (The Physics Factbook, "Thickness of a Piece of Paper",
@@ -45,5 +53,24 @@ describe("per-page shift", () => {
     expect(byPage.get(9)?.shiftXMm).toBeCloseTo(-0.3, 9);
     expect(byPage.get(8)?.shiftXMm).toBeCloseTo(0.3, 9);
     expect(Object.is(byPage.get(1)?.shiftXMm, -0)).toBe(false);
+  });
+});
+
+describe("a booklet's calipers and creep", () => {
+  // 24 pages fold from 6 sheets (a sheet folded once carries 4 pages: common practice, no source).
+  const sheets = 24 / 4;
+  it("uses the text caliper on every sheet of a self-cover booklet, linear push-out", () => {
+    const stock = { paperCaliperMm: 0.1, coverStock: "self" as const, coverPaperGsm: null };
+    expect(bookletCalipersMm(sheets, stock)).toEqual(Array(6).fill(0.1));
+    // Linear model: sheet k sticks out by the calipers outside it, (k-1) x 0.1 mm.
+    const creep = bookletCreepMm(sheets, stock);
+    expect(creep.map((c) => Number(c.toFixed(6)))).toEqual([0, 0.1, 0.2, 0.3, 0.4, 0.5]);
+  });
+  it("gives the outer sheet of a separate cover the caliper of its weight", () => {
+    const stock = { paperCaliperMm: 0.1, coverStock: "separate" as const, coverPaperGsm: 216 };
+    const cover = defaultCaliperMm(216);
+    expect(bookletCalipersMm(sheets, stock)[0]).toBeCloseTo(cover, 9);
+    expect(bookletCreepMm(sheets, stock)[1]).toBeCloseTo(cover, 9);
+    expect(bookletCreepMm(sheets, stock)[5]).toBeCloseTo(cover + 0.4, 9);
   });
 });
