@@ -3,6 +3,7 @@
  * files may change, and the spec each page file is checked against. Pure; the database and route
  * layers ask these and act on the answer.
  */
+import { can } from "@/lib/auth/policy";
 import type { AnthologyStage, PieceStatus, Role } from "@/lib/domain";
 import { specOf, type PrintSpec, type SpecColumns } from "@/lib/print/spec";
 import { Refusal } from "@/lib/refusal";
@@ -29,15 +30,13 @@ export function submitRefusal(
   activePieces: number,
   call: { piecesPerPerson: number },
 ): Refusal | null {
-  if (role === "lead" || role === "editor")
+  // People outside the anthology may submit: their first piece makes them a contributor.
+  if (role !== null && !can(role, "pieces:submit"))
     return new Refusal(
       403,
-      "You edit this anthology, so you cannot submit to its call. Ask another editor to add your piece, or use a separate contributor account.",
-    );
-  if (role === "finisher")
-    return new Refusal(
-      403,
-      "You are this anthology's finisher; finishers cannot submit to its call.",
+      can(role, "pieces:review")
+        ? "You edit this anthology, so you cannot submit to its call. Ask another editor to add your piece, or use a separate contributor account."
+        : "You are this anthology's finisher; finishers cannot submit to its call.",
     );
   if (activePieces >= call.piecesPerPerson)
     return new Refusal(
