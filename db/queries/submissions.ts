@@ -7,6 +7,7 @@ import type { PieceStatus, Role } from "@/lib/domain";
 import type { SpecReport } from "@/lib/print/check";
 import { canMove } from "@/lib/pieces/status";
 import { pieceVerdictOf, type PieceVerdict } from "@/lib/pieces/verdict";
+import { shouldBecomeCurrent } from "@/lib/pieces/versions";
 import { submitRefusal } from "@/lib/pieces/submission-rules";
 import type { PieceParsed } from "@/lib/validations/piece";
 import type { Anthology } from "./anthologies";
@@ -380,10 +381,25 @@ export async function useVersion(
         "This page changed in another window since you opened it; reload to see its current file.",
       );
     const [version] = await tx
-      .select({ id: fv.id })
+      .select({ id: fv.id, report: fv.report })
       .from(fv)
       .where(and(eq(fv.id, choice.versionId), eq(fv.piecePageId, page.id)));
     if (!version) throw new Refusal(404, "That version does not belong to this page.");
+    const [inUse] =
+      page.currentVersionId === null
+        ? []
+        : await tx.select({ report: fv.report }).from(fv).where(eq(fv.id, page.currentVersionId));
+    // Chosen by hand or not, a file the check could not read never displaces a readable one.
+    if (
+      !shouldBecomeCurrent(
+        version.report as SpecReport,
+        (inUse?.report ?? null) as SpecReport | null,
+      )
+    )
+      throw new Refusal(
+        409,
+        "That version could not be read by the check, so it cannot replace a file that can; the file in use stays.",
+      );
     await tx
       .update(pp)
       .set({ currentVersionId: version.id, revision: page.revision + 1 })

@@ -2,8 +2,9 @@ import "server-only";
 /**
  * What happens to an artwork file once it is stored: read it back, check it against the
  * anthology's print spec, make a thumbnail, record the version with its report, move the page's
- * current file (guarded by the page revision), recompute the piece's verdict and status, and
- * e-mail the contributor the result. Also the upload route's permission check.
+ * current file (guarded by the page revision; a file the check could not read never displaces a
+ * readable one), recompute the piece's verdict and status, and e-mail the contributor the
+ * result. Also the upload route's permission check.
  */
 import { createHash } from "node:crypto";
 import { and, eq, sql } from "drizzle-orm";
@@ -19,6 +20,7 @@ import { checkArtwork, type SpecReport } from "@/lib/print/check";
 import { statusAfterNewFile } from "@/lib/pieces/status";
 import { specForPiece, uploadsAllowed, uploadsClosedReason } from "@/lib/pieces/submission-rules";
 import { isPieceVerdict, type PieceVerdict } from "@/lib/pieces/verdict";
+import { readable, shouldBecomeCurrent, type HeldBack } from "@/lib/pieces/versions";
 import { maxUploadBytes, readStoredFile } from "@/server/uploads";
 import type { ArtworkUploadInput } from "@/lib/validations/piece";
 import { makeThumbnail } from "./thumbnail";
@@ -103,8 +105,10 @@ export type IngestResult = {
   versionNumber: number;
   verdict: SpecReport["verdict"];
   pieceVerdict: PieceVerdict;
-  /** False when another upload replaced the page first: the file is kept as a version, not used. */
+  /** False when the file is kept as a version but not used for the page; `heldBack` says why. */
   current: boolean;
+  /** Why a file is not current: another upload replaced the page first, or it could not be read. */
+  heldBack: HeldBack | null;
   revision: number;
   status: PieceStatus;
 };
@@ -161,20 +165,28 @@ export async function ingestUpload(
 
     // A hook delivered twice must not make two versions of one stored file.
     const [already] = await tx
-      .select({ id: fv.id, versionNumber: fv.versionNumber, verdict: fv.verdict })
+      .select({ id: fv.id, versionNumber: fv.versionNumber, report: fv.report })
       .from(fv)
       .where(and(eq(fv.piecePageId, page.id), eq(fv.storageKey, request.file.key)));
-    if (already)
+    if (already) {
+      const current = page.currentVersionId === already.id;
+      const heldBack: HeldBack | null = current
+        ? null
+        : readable(already.report as SpecReport)
+          ? "replaced"
+          : "unreadable";
       return {
         versionId: already.id,
         versionNumber: already.versionNumber,
-        current: page.currentVersionId === already.id,
+        current,
+        heldBack,
         revision: page.revision,
         pieceVerdict: (isPieceVerdict(piece.verdict) ? piece.verdict : "missing") as PieceVerdict,
         status: piece.status,
         duplicate: true,
         title: piece.title,
       };
+    }
 
     const [last] = await tx
       .select({ n: sql<number>`COALESCE(MAX(${fv.versionNumber}), 0)` })
@@ -201,7 +213,19 @@ export async function ingestUpload(
       .$returningId();
     if (!inserted) throw new Error("file version insert returned no id");
 
-    const current = request.expectedRevision === null || request.expectedRevision === page.revision;
+    // The file in use stays when another upload replaced the page meanwhile, and when this file
+    // could not be read but the one in use can (lib/pieces/versions).
+    const [inUse] =
+      page.currentVersionId === null
+        ? []
+        : await tx.select({ report: fv.report }).from(fv).where(eq(fv.id, page.currentVersionId));
+    const onTime = request.expectedRevision === null || request.expectedRevision === page.revision;
+    const heldBack: HeldBack | null = !onTime
+      ? "replaced"
+      : shouldBecomeCurrent(report, inUse ? (inUse.report as SpecReport) : null)
+        ? null
+        : "unreadable";
+    const current = heldBack === null;
     const revision = current ? page.revision + 1 : page.revision;
     if (current)
       await tx
@@ -210,7 +234,8 @@ export async function ingestUpload(
         .where(eq(pp.id, page.id));
     const pieceVerdict = await refreshPieceVerdict(tx, piece.id);
 
-    const status = statusAfterNewFile(piece.status);
+    // A file that could not be read answers no fix request: the piece waits for a readable one.
+    const status = heldBack === "unreadable" ? piece.status : statusAfterNewFile(piece.status);
     if (status !== piece.status) {
       await tx.update(p).set({ status }).where(eq(p.id, piece.id));
       await tx.insert(schema.pieceEvents).values({
@@ -228,6 +253,7 @@ export async function ingestUpload(
       versionId: inserted.id,
       versionNumber,
       current,
+      heldBack,
       revision,
       pieceVerdict,
       status,
@@ -247,6 +273,7 @@ export async function ingestUpload(
     verdict: report.verdict,
     pieceVerdict: outcome.pieceVerdict,
     current: outcome.current,
+    heldBack: outcome.heldBack,
     revision: outcome.revision,
     status: outcome.status,
   };
@@ -256,7 +283,7 @@ export async function ingestUpload(
 async function mailReport(
   anthology: Anthology,
   request: IngestRequest,
-  outcome: { versionId: number; versionNumber: number; current: boolean; title: string },
+  outcome: { versionId: number; versionNumber: number; heldBack: HeldBack | null; title: string },
   report: SpecReport,
 ) {
   const [person] = await db
@@ -272,7 +299,7 @@ async function mailReport(
     versionNumber: outcome.versionNumber,
     anthologyTitle: anthology.title,
     report,
-    notUsed: outcome.current ? null : "replaced",
+    notUsed: outcome.heldBack,
     link: appUrl(`/studio/${anthology.slug}/my-pieces/${request.pieceId}`),
   });
   await sendLoggedMail(

@@ -5,8 +5,13 @@ import { PDFDocument, rgb } from "pdf-lib";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool, schema } from "@/db";
+import { useVersion } from "@/db/queries/submissions";
 import { Refusal } from "@/lib/refusal";
-import { authoriseArtworkUpload, ingestUpload, type IngestResult } from "@/server/submissions/ingest";
+import {
+  authoriseArtworkUpload,
+  ingestUpload,
+  type IngestResult,
+} from "@/server/submissions/ingest";
 import { storeFile } from "@/server/uploads";
 import { assertTestDatabase } from "../helpers/env";
 import { waitForMessage } from "../helpers/outbox";
@@ -302,6 +307,81 @@ describe("versions, revisions and the piece", () => {
     expect((await pieceRow(pieceId)).verdict).toBe("pass");
   });
 
+  it("a damaged file after a passing one is kept with its report, but the passing file stays current", async () => {
+    const pieceId = await makePiece(anthologyId, bea.id, { title: "Heron at dusk" });
+    const good = await upload(pieceId, 1, await greyPage(1725, 2625), "heron.png", "image/png", 0);
+    expect(good).toMatchObject({ verdict: "pass", current: true, revision: 1 });
+    // The same PNG cut short after 3000 bytes: the checker cannot read its pixels.
+    const cut = (await greyPage(1725, 2625)).subarray(0, 3000);
+    const damaged = await upload(pieceId, 1, cut, "heron-v2.png", "image/png", 1);
+    expect(damaged).toMatchObject({
+      versionNumber: 2,
+      verdict: "blocker",
+      current: false,
+      heldBack: "unreadable",
+      pieceVerdict: "pass",
+      // The page's current file did not change, so neither did its revision.
+      revision: 1,
+    });
+
+    const page = await pageOf(pieceId);
+    expect(page.currentVersionId).toBe(good.versionId);
+    expect(page.revision).toBe(1);
+    const stored = await db
+      .select()
+      .from(schema.fileVersions)
+      .where(eq(schema.fileVersions.piecePageId, page.id));
+    expect(stored.map((v) => v.versionNumber).sort()).toEqual([1, 2]);
+    expect(codes(stored.find((v) => v.versionNumber === 2)!.report)).toContain("file-truncated");
+    expect((await pieceRow(pieceId)).verdict).toBe("pass");
+
+    const mail = await waitForMessage({
+      to: bea.email,
+      subject: /Spec check: "Heron at dusk", page 1: Won't print/,
+    });
+    expect(mail.text).toContain("This file could not be read, so your earlier file stays in use.");
+
+    // Nor can it be chosen by hand over the readable file.
+    await expect(
+      useVersion(
+        pieceId,
+        bea.id,
+        { pageIndex: 1, versionId: damaged.versionId, expectedRevision: 1 },
+        () => true,
+      ),
+    ).rejects.toMatchObject({ status: 409 });
+    expect((await pageOf(pieceId)).currentVersionId).toBe(good.versionId);
+
+    // A readable file after it takes the page as usual, on the revision the page still has.
+    const fixed = await upload(
+      pieceId,
+      1,
+      await greyPage(1650, 2550),
+      "heron-v3.png",
+      "image/png",
+      1,
+    );
+    expect(fixed).toMatchObject({ versionNumber: 3, current: true, revision: 2 });
+    expect((await pieceRow(pieceId)).verdict).toBe("blocker");
+  });
+
+  it("an unreadable file does not answer a fix request; on an empty page it is shown", async () => {
+    const pieceId = await makePiece(anthologyId, bea.id, { title: "Fix pending", kind: "spread" });
+    const left = await upload(pieceId, 1, await greyPage(1725, 2625), "left.png", "image/png", 0);
+    await db
+      .update(schema.pieces)
+      .set({ status: "fix-requested" })
+      .where(eq(schema.pieces.id, pieceId));
+    const locked = await upload(pieceId, 1, encryptedPdf(), "left.pdf", "application/pdf", 1);
+    expect(locked).toMatchObject({ current: false, heldBack: "unreadable" });
+    expect((await pieceRow(pieceId)).status).toBe("fix-requested");
+    expect((await pageOf(pieceId, 1)).currentVersionId).toBe(left.versionId);
+    // The right page has no file yet: the unreadable one is shown, so its report is in view.
+    const empty = await upload(pieceId, 2, new Uint8Array(0), "right.png", "image/png", 0);
+    expect(empty).toMatchObject({ current: true, heldBack: null });
+    expect((await pieceRow(pieceId)).verdict).toBe("blocker");
+  });
+
   it("two concurrent uploads for the same page leave one current version and store both", async () => {
     const pieceId = await makePiece(anthologyId, bea.id, { title: "Two tabs" });
     const [a, b] = await Promise.all([
@@ -383,8 +463,7 @@ describe("refusals", () => {
     try {
       await work;
     } catch (error) {
-      if (error instanceof Refusal)
-        return { status: error.status, message: error.message };
+      if (error instanceof Refusal) return { status: error.status, message: error.message };
       throw error;
     }
     throw new Error("expected a refusal");

@@ -5,6 +5,7 @@ import "server-only";
  * and hands its outcome back to the browser as serverData. It never throws: a thrown error would
  * leave the browser waiting for an answer that never comes.
  */
+import type { HeldBack } from "@/lib/pieces/versions";
 import { Refusal } from "@/lib/refusal";
 import { currentUser } from "@/server/auth/guard";
 import { authoriseArtworkUpload, ingestUpload } from "@/server/submissions/ingest";
@@ -38,6 +39,8 @@ export type ArtworkServerData =
       verdict: string;
       pieceVerdict: string;
       current: boolean;
+      /** Why the file is not the page's current one: replaced meanwhile, or unreadable. */
+      heldBack: HeldBack | null;
       revision: number;
     }
   | { ok: false; error: string };

@@ -16,10 +16,12 @@ import { requireAnthologyAccess } from "@/server/auth/guard";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { canMove } from "@/lib/pieces/status";
+import { shouldBecomeCurrent, unreadableSinceCurrent } from "@/lib/pieces/versions";
 import { specOf } from "@/lib/print/spec";
 import { uploadsAllowed, uploadsClosedReason } from "@/lib/pieces/submission-rules";
 import { AltTextEditor } from "./_components/alt-text-editor";
 import { PageUpload } from "./_components/page-upload";
+import { UnreadableUploads } from "./_components/unreadable-uploads";
 import { UseVersionButton } from "./_components/use-version-button";
 import { WithdrawPiece } from "./_components/withdraw-piece";
 
@@ -162,7 +164,11 @@ function PageSection({
   maxMb: number;
 }) {
   const current = page.versions.find((v) => v.id === page.currentVersionId) ?? null;
-  const others = page.versions.filter((v) => v.id !== page.currentVersionId);
+  // Newer uploads the check could not read are shown beside the file in use, not tucked away.
+  const unreadable = unreadableSinceCurrent(page.versions, page.currentVersionId);
+  const others = page.versions.filter(
+    (v) => v.id !== page.currentVersionId && !unreadable.includes(v),
+  );
   return (
     <section
       aria-labelledby={`page-${page.pageIndex}-heading`}
@@ -225,6 +231,14 @@ function PageSection({
           />
         </div>
       </div>
+      {current && unreadable.length > 0 ? (
+        <UnreadableUploads
+          versions={unreadable}
+          pageIndex={page.pageIndex}
+          inUse={current.versionNumber}
+          when={when}
+        />
+      ) : null}
       {others.length > 0 ? (
         <details
           className="rounded-md border border-ink/10 bg-white/40 p-3"
@@ -253,7 +267,7 @@ function PageSection({
                     · {when(v.uploadedAt)}
                   </p>
                   <SpecReport report={v.report} />
-                  {open ? (
+                  {open && shouldBecomeCurrent(v.report, current?.report ?? null) ? (
                     <UseVersionButton
                       pieceId={pieceId}
                       pageIndex={page.pageIndex}
