@@ -154,6 +154,8 @@ export const anthologies = mysqlTable("anthology", {
   currency: char("currency", { length: 3 }).notNull().default("USD"),
   /** Bumped on every page-map change; stale map edits are refused. */
   mapVersion: int("map_version").notNull().default(0),
+  /** Copies the editor plans to print; the page map's pass figures use it and its sheet view changes it. */
+  plannedCopies: int("planned_copies").notNull().default(100),
   createdBy: userRef("created_by").notNull(),
   createdAt: createdAt(),
   updatedAt: updatedAt(),

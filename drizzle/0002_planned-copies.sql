@@ -1,0 +1,1 @@
+ALTER TABLE `anthology` ADD `planned_copies` int DEFAULT 100 NOT NULL;
