@@ -113,7 +113,24 @@ export default async function Landing() {
             </ul>
           </div>
         ) : null}
-        <table className="mt-4 w-full text-left text-sm">
+        {/* On a phone the four columns do not fit: each person becomes a short card instead. */}
+        <ul className="mt-4 flex flex-col gap-2 text-sm sm:hidden" data-testid="demo-account-cards">
+          {demoAccounts.map((a) => (
+            <li key={a.email} className="border-t border-ink/10 pt-2">
+              <p>
+                <span className="font-semibold">{a.name}</span>{" "}
+                <span className="text-ink-soft">· {ROLE_LABELS[a.role as Role]}</span>
+              </p>
+              <dl className="grid grid-cols-[auto_1fr] gap-x-2 font-mono text-xs">
+                <dt className="font-sans text-ink-faint">E-mail</dt>
+                <dd className="break-all">{a.email}</dd>
+                <dt className="font-sans text-ink-faint">Password</dt>
+                <dd className="break-all">{a.password}</dd>
+              </dl>
+            </li>
+          ))}
+        </ul>
+        <table className="mt-4 hidden w-full text-left text-sm sm:table">
           <thead className="text-ink-faint">
             <tr>
               <th className="py-1 font-normal">Who</th>

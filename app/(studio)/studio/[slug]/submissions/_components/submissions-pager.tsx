@@ -21,12 +21,17 @@ export function SubmissionsPager({
   const lastPage = Math.max(1, Math.ceil(total / query.pageSize));
   const first = (query.page - 1) * query.pageSize + 1;
   return (
-    <nav aria-label="Pages of submissions" className="flex items-center gap-3">
+    // One line at phone width (390 px): short labels below the sm breakpoint, full words above.
+    <nav
+      aria-label="Pages of submissions"
+      data-testid="pager"
+      className="flex flex-nowrap items-center gap-2 whitespace-nowrap sm:gap-3"
+    >
       <span data-testid="page-summary" aria-live="polite">
         {shown ? `${first}–${first + shown - 1}` : "0"} of {total}
       </span>
       <label className="flex items-center gap-1">
-        <span className="text-ink-soft">Per page</span>
+        <span className="sr-only text-ink-soft sm:not-sr-only">Per page</span>
         <select
           value={query.pageSize}
           onChange={(event) => setQuery({ pageSize: Number(event.target.value) })}
@@ -45,10 +50,18 @@ export function SubmissionsPager({
         disabled={query.page <= 1}
         onClick={() => setQuery({ page: query.page - 1 })}
       >
-        Previous
+        <span aria-hidden="true" className="sm:hidden">
+          ‹ Prev
+        </span>
+        <span className="sr-only sm:not-sr-only">Previous</span>
       </Button>
-      <span>
-        Page {query.page} of {lastPage}
+      <span data-testid="page-of">
+        <span aria-hidden="true" className="sm:hidden">
+          {query.page}/{lastPage}
+        </span>
+        <span className="sr-only sm:not-sr-only">
+          Page {query.page} of {lastPage}
+        </span>
       </span>
       <Button
         type="button"
@@ -56,7 +69,10 @@ export function SubmissionsPager({
         disabled={query.page >= lastPage}
         onClick={() => setQuery({ page: query.page + 1 })}
       >
-        Next
+        <span aria-hidden="true" className="sm:hidden">
+          Next ›
+        </span>
+        <span className="sr-only sm:not-sr-only">Next</span>
       </Button>
     </nav>
   );

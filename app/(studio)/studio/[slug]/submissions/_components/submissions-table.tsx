@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { SubmissionSort } from "@/lib/validations/review";
 import { BulkStatusBar } from "./bulk-status-bar";
+import { ScrollCue } from "./scroll-cue";
 import { useSubmissionColumns } from "./submission-columns";
 import { SubmissionsEmpty } from "./submissions-empty";
 import { SubmissionsGrid } from "./submissions-grid";
@@ -104,7 +105,7 @@ export function SubmissionsTable({ slug }: { slug: string }) {
         </Notice>
       ) : null}
 
-      <div className="overflow-x-auto rounded-md border border-ink/15 bg-white/40">
+      <ScrollCue className="rounded-md border border-ink/15 bg-white/40">
         <SubmissionsGrid
           table={table}
           query={query}
@@ -120,7 +121,7 @@ export function SubmissionsTable({ slug }: { slug: string }) {
             onFirstPage={() => setQuery({ page: 1 })}
           />
         ) : null}
-      </div>
+      </ScrollCue>
 
       <div className="flex flex-wrap items-center justify-between gap-3 text-sm">
         <p id="table-keys" className="text-xs text-ink-faint">
