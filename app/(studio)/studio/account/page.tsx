@@ -1,11 +1,17 @@
 import { passwordHashOf } from "@/db/queries/users";
 import { requireUser } from "@/server/auth/guard";
+import { Notice } from "@/components/ui/notice";
 import { PasswordForm } from "./_components/password-form";
 
 export const metadata = { title: "Your account" };
 
-export default async function AccountPage() {
+export default async function AccountPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ changed?: string }>;
+}) {
   const user = await requireUser("/studio/account");
+  const { changed } = await searchParams;
   const hasPassword = Boolean(await passwordHashOf(user.id));
   return (
     <div className="flex max-w-3xl flex-col gap-8">
@@ -25,6 +31,11 @@ export default async function AccountPage() {
             ? "Changing it signs you out on every other browser and device."
             : "You sign in by e-mail link today. A password lets you sign in without waiting for mail."}
         </p>
+        {changed === "1" ? (
+          <Notice tone="info" testId="password-outcome">
+            Password changed. You were signed out everywhere else; this browser stays signed in.
+          </Notice>
+        ) : null}
         <PasswordForm hasPassword={hasPassword} />
       </section>
     </div>

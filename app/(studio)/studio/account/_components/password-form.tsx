@@ -13,22 +13,15 @@ import { changePasswordAction } from "../actions";
 /** Change the password (or set a first one for an account made by e-mail link). */
 export function PasswordForm({ hasPassword }: { hasPassword: boolean }) {
   const [pending, startTransition] = useTransition();
-  const [outcome, setOutcome] = useState<{ tone: "info" | "error"; text: string } | null>(null);
-  const { register, handleSubmit, setError, reset, formState } = useForm<ChangePasswordInput>({
+  const [outcome, setOutcome] = useState<{ tone: "error"; text: string } | null>(null);
+  const { register, handleSubmit, setError, formState } = useForm<ChangePasswordInput>({
     resolver: zodResolver(changePasswordSchema),
   });
   const onSubmit = handleSubmit((values) =>
     startTransition(async () => {
       setOutcome(null);
+      // On success the action redirects back here with ?changed=1, and the page says so.
       const result = await changePasswordAction(values);
-      if (result.ok) {
-        reset({ currentPassword: "", newPassword: "" });
-        setOutcome({
-          tone: "info",
-          text: "Password changed. You were signed out everywhere else; this browser stays signed in.",
-        });
-        return;
-      }
       showServerFieldErrors(setError, result.fields);
       if (result.error) setOutcome({ tone: "error", text: result.error });
     }),
