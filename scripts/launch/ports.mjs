@@ -6,10 +6,15 @@ import net from "node:net";
 
 import { Fatal } from "./common.mjs";
 
+// QUIRELINE_TEST_PORT_OFFSET moves every `npm test` port by that much, so a second checkout can
+// run its tests at the same time (give it its own QUIRELINE_DB_PORT too).
+const testOffset = Number.parseInt(process.env.QUIRELINE_TEST_PORT_OFFSET ?? "", 10) || 0;
+const shift = (ports, by) => Object.fromEntries(Object.entries(ports).map(([k, v]) => [k, v + by]));
+
 export const PORTS = {
   start: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
   dev: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
-  test: { app: 3100, upload: 4690, smtp: 4625, outbox: 4626 },
+  test: shift({ app: 3100, upload: 4690, smtp: 4625, outbox: 4626 }, testOffset),
 };
 const PORT_OWNERS = {
   3000: "the web app of a Quireline `npm start` or `npm run dev`",
