@@ -2,7 +2,8 @@
  * Wall-clock times in an IANA time zone and the UTC instants they name. Pure; runs in the
  * browser and on the server alike. Conversions go through Temporal (`temporal-polyfill`, which
  * reads the tz database through the built-in Intl API); zone names and words come from Intl.
- * Calls store UTC instants plus the zone the editor wrote them in, and are shown in that zone.
+ * Calls store UTC instants plus the zone the editor wrote them in, and are shown in that zone
+ * (the words for people are written by lib/dates.ts).
  *
  * One rule at a change of clocks (the zone's own DST rule, as the tz database records it):
  * - a wall-clock time the clocks skip when they go forward names no instant and is refused
@@ -123,37 +124,4 @@ export function offsetLabel(instant: Date, zone: string): string {
   const hours = Math.floor(abs / 60);
   const rest = abs % 60;
   return `UTC${sign}${hours}${rest ? `:${String(rest).padStart(2, "0")}` : ""}`;
-}
-
-/** Named parts of an instant's date in a zone, read from Intl so ICU punctuation does not leak in. */
-function dateWords(instant: Date, zone: string) {
-  const parts: Record<string, string> = {};
-  const formatter = new Intl.DateTimeFormat("en-GB", {
-    timeZone: zone,
-    weekday: "long",
-    day: "numeric",
-    month: "long",
-    year: "numeric",
-  });
-  for (const part of formatter.formatToParts(instant))
-    if (part.type !== "literal") parts[part.type] = part.value;
-  return {
-    weekday: parts.weekday ?? "",
-    day: parts.day ?? "",
-    month: parts.month ?? "",
-    year: parts.year ?? "",
-  };
-}
-
-/** An instant for people, in the zone it was written in: "Sunday 3 August 2025, 17:00 (Europe/Lisbon, UTC+1)". */
-export function formatInZone(instant: Date, zone: string): string {
-  const d = dateWords(instant, zone);
-  const time = utcToZonedLocal(instant, zone).slice(11, 16);
-  return `${d.weekday} ${d.day} ${d.month} ${d.year}, ${time} (${zone}, ${offsetLabel(instant, zone)})`;
-}
-
-/** Just the date in the zone: "3 August 2025". */
-export function formatDateInZone(instant: Date, zone: string): string {
-  const d = dateWords(instant, zone);
-  return `${d.day} ${d.month} ${d.year}`;
 }

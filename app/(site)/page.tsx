@@ -4,7 +4,7 @@ import demoAccounts from "@/db/demo-accounts.json";
 import { listOpenCalls } from "@/db/queries/open-call";
 import { linkButtonClass } from "@/components/ui/button";
 import { ROLE_LABELS, type Role } from "@/lib/domain";
-import { formatDateInZone } from "@/lib/time-zones";
+import { formatDate } from "@/lib/dates";
 
 const STEPS = [
   [
@@ -105,8 +105,8 @@ export default async function Landing() {
                   <span className="text-ink-soft">
                     &ldquo;{call.theme}&rdquo;,{" "}
                     {call.upcoming
-                      ? `opens ${formatDateInZone(call.opensAt, call.timeZone)}`
-                      : `closes ${formatDateInZone(call.closesAt, call.timeZone)}`}
+                      ? `opens ${formatDate(call.opensAt, call.timeZone)}`
+                      : `closes ${formatDate(call.closesAt, call.timeZone)}`}
                   </span>
                 </li>
               ))}

@@ -10,7 +10,7 @@ import { callSpecSummary } from "@/lib/call-spec";
 import { specOf } from "@/lib/print/spec";
 import { copiesText, feeText, salesShareText } from "@/lib/call-terms";
 import { callPhase, kindsText } from "@/lib/stages";
-import { formatInZone } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
 
 type Props = { params: Promise<{ slug: string }> };
 
@@ -35,7 +35,7 @@ export default async function PublicCallPage({ params }: Props) {
   const { anthology, call: row } = found;
   const call = toCallRecord(row);
   const phase = callPhase(row, anthology.stage, new Date());
-  const at = (date: Date) => formatInZone(date, call.timeZone);
+  const at = (date: Date) => formatDateTime(date, call.timeZone);
   const paragraphs = call.brief
     .split(/\n\s*\n/)
     .map((p) => p.trim())

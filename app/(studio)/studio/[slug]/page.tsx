@@ -4,7 +4,7 @@ import { requireAnthologyAccess } from "@/server/auth/guard";
 import { can } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { callPhase } from "@/lib/stages";
-import { formatInZone } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
 import { BINDING_LABELS, PRINT_METHOD_LABELS, ROLE_LABELS, STAGE_LABELS } from "@/lib/domain";
 import { formatLength, formatTrim } from "@/lib/format";
 import { shouldScore } from "@/lib/print/paper";
@@ -57,10 +57,10 @@ export default async function AnthologyOverview({ params }: { params: Promise<{ 
               {phase === "unpublished"
                 ? "not published yet"
                 : phase === "upcoming"
-                  ? `opens ${formatInZone(call.opensAt, call.timeZone)}`
+                  ? `opens ${formatDateTime(call.opensAt, call.timeZone)}`
                   : phase === "open"
-                    ? `open until ${formatInZone(call.closesAt, call.timeZone)}`
-                    : `closed on ${formatInZone(call.closesAt, call.timeZone)}`}
+                    ? `open until ${formatDateTime(call.closesAt, call.timeZone)}`
+                    : `closed on ${formatDateTime(call.closesAt, call.timeZone)}`}
             </>
           ) : (
             "No call written yet."

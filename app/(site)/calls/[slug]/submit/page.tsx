@@ -12,7 +12,7 @@ import { currentUser } from "@/server/auth/guard";
 import { formatLength, formatTrim } from "@/lib/format";
 import { bleedBoxOf, pixelsFor, specOf } from "@/lib/print/spec";
 import { callPhase, kindsText } from "@/lib/stages";
-import { formatInZone } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
 import { PieceForm } from "./_components/piece-form";
 
 type Props = { params: Promise<{ slug: string }> };
@@ -48,12 +48,12 @@ export default async function SubmitPage({ params }: Props) {
 
       {phase === "upcoming" ? (
         <Notice tone="warn" title="Not open yet" testId="submit-closed">
-          This call opens on {formatInZone(call.opensAt, call.timeZone)}. Come back then to send
+          This call opens on {formatDateTime(call.opensAt, call.timeZone)}. Come back then to send
           your work.
         </Notice>
       ) : phase !== "open" ? (
         <Notice tone="caution" title="This call is closed" testId="submit-closed">
-          It closed on {formatInZone(call.closesAt, call.timeZone)} and takes no new pieces.
+          It closed on {formatDateTime(call.closesAt, call.timeZone)} and takes no new pieces.
           {active > 0 ? (
             <>
               {" "}

@@ -8,7 +8,8 @@ import { callSpecSummary } from "@/lib/call-spec";
 import { env } from "@/lib/env";
 import { specOf } from "@/lib/print/spec";
 import { callPhase, nextStage, reviewStageMove } from "@/lib/stages";
-import { allTimeZones, formatInZone } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
+import { allTimeZones } from "@/lib/time-zones";
 import { callInputFromRecord, newCallDefaults } from "@/lib/validations/call";
 import { CallForm } from "./_components/call-form";
 import { StageControls } from "./_components/stage-controls";
@@ -28,7 +29,7 @@ export default async function CallPage({ params }: { params: Promise<{ slug: str
   const phase = callPhase(row?.publishedAt ? row : null, anthology.stage, now);
   const next = nextStage(anthology.stage);
   const zone = record?.timeZone ?? "UTC";
-  const at = (date: Date) => formatInZone(date, zone);
+  const at = (date: Date) => formatDateTime(date, zone);
   const review = next
     ? reviewStageMove(
         {

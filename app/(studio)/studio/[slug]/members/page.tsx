@@ -11,6 +11,7 @@ import {
   rolesInvitableBy,
   type RoleChangeRefusal,
 } from "@/lib/auth/policy";
+import { formatDate } from "@/lib/dates";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain";
 import { InviteForm } from "./_components/invite-form";
 
@@ -150,7 +151,7 @@ export default async function MembersPage({
                 <tr key={p.id} className="border-t border-ink/10">
                   <td className="py-1 font-mono">{p.email}</td>
                   <td className="py-1">{ROLE_LABELS[p.role]}</td>
-                  <td className="py-1">{p.expiresAt.toISOString().slice(0, 10)}</td>
+                  <td className="py-1">{formatDate(p.expiresAt)}</td>
                   {mayManage ? (
                     <td className="py-1 text-right">
                       <form action={revoke}>

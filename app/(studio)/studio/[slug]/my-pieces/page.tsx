@@ -7,7 +7,7 @@ import { countActivePieces, findCall, listOwnPieces } from "@/db/queries/submiss
 import { requireAnthologyAccess } from "@/server/auth/guard";
 import { PIECE_KIND_LABELS } from "@/lib/domain";
 import { callPhase } from "@/lib/stages";
-import { formatInZone } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
 
 export const metadata = { title: "My pieces" };
 
@@ -35,9 +35,9 @@ export default async function MyPiecesPage({ params }: { params: Promise<{ slug:
           {call ? (
             <p className="text-sm text-ink-soft">
               {phase === "open"
-                ? `The call is open until ${formatInZone(call.closesAt, call.timeZone)}. You have ${active} of ${call.piecesPerPerson} pieces in.`
+                ? `The call is open until ${formatDateTime(call.closesAt, call.timeZone)}. You have ${active} of ${call.piecesPerPerson} pieces in.`
                 : phase === "closed"
-                  ? `The call closed on ${formatInZone(call.closesAt, call.timeZone)}; files can only change where an editor asks for a fix.`
+                  ? `The call closed on ${formatDateTime(call.closesAt, call.timeZone)}; files can only change where an editor asks for a fix.`
                   : "The call is not open yet."}
             </p>
           ) : null}

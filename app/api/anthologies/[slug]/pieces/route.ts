@@ -4,7 +4,7 @@ import { callRulesOf, submitRefusal } from "@/lib/pieces/submission-rules";
 import { apiRoute, HttpError, readJson, requireApiAccess, requireApiUser } from "@/server/api";
 
 import { callPhase } from "@/lib/stages";
-import { formatInZone } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
 import { pieceSchemaFor } from "@/lib/validations/piece";
 import type { PieceCreatedAnswer } from "@/lib/wire/submissions";
 
@@ -34,12 +34,12 @@ export const POST = apiRoute(async (request, { params }: Context) => {
   if (phase === "upcoming")
     throw new HttpError(
       409,
-      `The call opens on ${formatInZone(call.opensAt, call.timeZone)}; come back then to send your piece.`,
+      `The call opens on ${formatDateTime(call.opensAt, call.timeZone)}; come back then to send your piece.`,
     );
   if (phase === "closed")
     throw new HttpError(
       409,
-      `The call closed on ${formatInZone(call.closesAt, call.timeZone)}; it no longer takes new pieces.`,
+      `The call closed on ${formatDateTime(call.closesAt, call.timeZone)}; it no longer takes new pieces.`,
     );
   // Cheap early answer; createPiece checks again under a lock.
   const early = submitRefusal(

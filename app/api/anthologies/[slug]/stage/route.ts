@@ -1,7 +1,7 @@
 import { countPiecesForStage, findCall, moveStage } from "@/db/queries/open-call";
 import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { reviewStageMove } from "@/lib/stages";
-import { formatInZone } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
 import { stageMoveSchema } from "@/lib/validations/call";
 import type { StageMovedAnswer } from "@/lib/wire/open-call";
 
@@ -24,7 +24,7 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ slu
       now,
     },
     to,
-    (date) => formatInZone(date, call?.timeZone ?? "UTC"),
+    (date) => formatDateTime(date, call?.timeZone ?? "UTC"),
   );
   if (review.problems.length > 0) {
     throw new HttpError(

@@ -3,7 +3,8 @@
 import { useMemo } from "react";
 import { useWatch } from "react-hook-form";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
-import { formatInZone, isValidTimeZone, timeZonesByRegion, zonedToUtc } from "@/lib/time-zones";
+import { formatDateTime } from "@/lib/dates";
+import { isValidTimeZone, timeZonesByRegion, zonedToUtc } from "@/lib/time-zones";
 import type { CallParsed } from "@/lib/validations/call";
 import { useCallForm } from "./call-form-context";
 
@@ -44,7 +45,7 @@ export function CallDatesSection({
     )
       return undefined;
     const result = zonedToUtc(local, timeZone);
-    return result.ok ? formatInZone(result.instant, timeZone) : undefined;
+    return result.ok ? formatDateTime(result.instant, timeZone) : undefined;
   };
 
   return (

@@ -13,6 +13,7 @@ import {
   type VersionView,
 } from "@/db/queries/submissions";
 import { requireAnthologyAccess } from "@/server/auth/guard";
+import { formatDateTime } from "@/lib/dates";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { canMove } from "@/lib/pieces/status";
@@ -29,7 +30,7 @@ type Props = { params: Promise<{ slug: string; pieceId: string }> };
 
 export const metadata = { title: "My piece" };
 
-const when = (iso: string) => new Date(iso).toISOString().replace("T", " ").slice(0, 16) + " UTC";
+const when = (iso: string) => formatDateTime(new Date(iso));
 
 function pageName(kind: string, pageIndex: number, pageCount: number) {
   if (pageCount === 1) return "The page";

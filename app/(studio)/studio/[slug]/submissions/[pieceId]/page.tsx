@@ -7,6 +7,7 @@ import { SpecReport } from "@/components/spec-report";
 import { VerdictBadge } from "@/components/verdict-badge";
 import { getPieceForReview, type ReviewVersion } from "@/db/queries/review";
 import { requireAnthologyAccess } from "@/server/auth/guard";
+import { formatDateTime } from "@/lib/dates";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS } from "@/lib/domain";
 import type { OverlaySpec } from "@/lib/pieces/overlay";
 import { specOf } from "@/lib/print/spec";
@@ -17,12 +18,7 @@ import { StatusChangeForm } from "./_components/status-change-form";
 
 export const metadata = { title: "Submission" };
 
-const at = new Intl.DateTimeFormat("en-GB", {
-  dateStyle: "medium",
-  timeStyle: "short",
-  timeZone: "UTC",
-});
-const when = (date: Date) => `${at.format(date)} UTC`;
+const when = (date: Date) => formatDateTime(date);
 
 function sizeText(bytes: number) {
   return bytes < 1024 * 1024

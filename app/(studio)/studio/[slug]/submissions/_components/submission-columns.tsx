@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useMemo } from "react";
 import { PieceStatusBadge } from "@/components/piece-status-badge";
 import { VerdictBadge } from "@/components/verdict-badge";
+import { formatDateTime } from "@/lib/dates";
 import { PIECE_KIND_LABELS } from "@/lib/domain";
 import type { SubmissionSort } from "@/lib/validations/review";
 import type { SubmissionRow } from "@/lib/wire/review";
@@ -31,8 +32,6 @@ export const HIDEABLE_COLUMNS: SubmissionSort[] = [
   "status",
   "updated",
 ];
-
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: "medium", timeStyle: "short" });
 
 /** The table's columns: a selection checkbox, then one per sort key, the title linking to the piece. */
 export function useSubmissionColumns(slug: string): ColumnDef<SubmissionRow>[] {
@@ -93,7 +92,7 @@ export function useSubmissionColumns(slug: string): ColumnDef<SubmissionRow>[] {
         id: "updated",
         cell: ({ row }) => (
           <time dateTime={row.original.updatedAt} className="whitespace-nowrap text-ink-soft">
-            {when.format(new Date(row.original.updatedAt))}
+            {formatDateTime(new Date(row.original.updatedAt))}
           </time>
         ),
       },

@@ -6,11 +6,10 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { formatDateTime } from "@/lib/dates";
 import { editorNoteSchema, type EditorNoteInput } from "@/lib/validations/review";
 import { ApiError, fetchJson } from "@/components/api/fetch-json";
 import type { NoteAddedAnswer, NotesAnswer } from "@/lib/wire/review";
-
-const at = new Intl.DateTimeFormat(undefined, { dateStyle: "medium", timeStyle: "short" });
 
 /** The editors' private notes on a piece: newest first, with a form to add one. */
 export function EditorNotes({ pieceId }: { pieceId: number }) {
@@ -96,7 +95,7 @@ export function EditorNotes({ pieceId }: { pieceId: number }) {
               <p className="whitespace-pre-line">{note.body}</p>
               <p className="mt-1 text-xs text-ink-soft">
                 {note.author.name ?? "An editor"} ·{" "}
-                <time dateTime={note.createdAt}>{at.format(new Date(note.createdAt))}</time>
+                <time dateTime={note.createdAt}>{formatDateTime(new Date(note.createdAt))}</time>
               </p>
             </li>
           ))}
