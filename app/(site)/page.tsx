@@ -5,6 +5,7 @@ import { listOpenCalls } from "@/db/queries/open-call";
 import { linkButtonClass } from "@/components/ui/button";
 import { ROLE_LABELS, type Role } from "@/lib/domain";
 import { formatDate } from "@/lib/dates";
+import { possessive } from "@/lib/possessive";
 
 const STEPS = [
   [
@@ -100,7 +101,7 @@ export default async function Landing() {
               {calls.map((call) => (
                 <li key={call.slug}>
                   <Link href={`/calls/${call.slug}`} className="font-semibold text-teal-dark">
-                    {call.title}&rsquo;s open call
+                    {possessive(call.title)} open call
                   </Link>{" "}
                   <span className="text-ink-soft">
                     &ldquo;{call.theme}&rdquo;,{" "}
