@@ -4,11 +4,10 @@
  * margin, resolution, pixel size and colour mode. Pure; shown on the studio call page and the
  * public call page.
  */
-import { formatLength, mmText } from "@/lib/format";
+import { formatLength, mmText, sizeInBothUnits } from "@/lib/format";
 import { SUPPORTED_FORMATS_TEXT } from "@/lib/print/check/types";
 import { findPreset } from "@/lib/print/sizes";
 import { bleedBoxOf, pixelsFor, type PrintMethod, type PrintSpec } from "@/lib/print/spec";
-import { mmToIn, roundTo } from "@/lib/print/units";
 
 export interface CallSpecSummary {
   rows: { key: string; label: string; value: string }[];
@@ -34,12 +33,6 @@ export function colourModeText(printMethod: PrintMethod, inks: readonly string[]
   }
 }
 
-function sizeBothUnits(widthMm: number, heightMm: number, inchesFirst: boolean): string {
-  const mm = `${mmText(widthMm)} x ${mmText(heightMm)} mm`;
-  const inches = `${roundTo(mmToIn(widthMm), 3)} x ${roundTo(mmToIn(heightMm), 3)} in`;
-  return inchesFirst ? `${inches} (${mm})` : `${mm} (${inches})`;
-}
-
 /** The spec summary rows; build the spec with the call's inks so the colour row names them. */
 export function callSpecSummary(a: PrintSpec): CallSpecSummary {
   const preset = a.trimPreset ? findPreset(a.trimPreset) : undefined;
@@ -51,8 +44,8 @@ export function callSpecSummary(a: PrintSpec): CallSpecSummary {
   const trimText = preset?.inches
     ? `${presetName}, ${trimMm}`
     : preset
-      ? `${presetName}, ${sizeBothUnits(a.trimWidthMm, a.trimHeightMm, false)}`
-      : sizeBothUnits(a.trimWidthMm, a.trimHeightMm, false);
+      ? `${presetName}, ${sizeInBothUnits(a.trimWidthMm, a.trimHeightMm, false)}`
+      : sizeInBothUnits(a.trimWidthMm, a.trimHeightMm, false);
   const withBleed = bleedBoxOf(a);
   const { widthPx, heightPx } = pixelsFor(withBleed, a.minPpi);
   const colourMode = colourModeText(a.printMethod, a.inks);
@@ -69,7 +62,7 @@ export function callSpecSummary(a: PrintSpec): CallSpecSummary {
       {
         key: "with-bleed",
         label: "Page with bleed",
-        value: sizeBothUnits(withBleed.widthMm, withBleed.heightMm, inchesFirst),
+        value: sizeInBothUnits(withBleed.widthMm, withBleed.heightMm, inchesFirst),
       },
       {
         key: "safe",

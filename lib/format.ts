@@ -2,16 +2,26 @@
 import { findPreset } from "@/lib/print/sizes";
 import { mmToIn, roundTo } from "@/lib/print/units";
 
-/** "Half letter (5.5 x 8.5 in)" for a preset, "120 x 170 mm" for a custom size. */
+/**
+ * "Half letter (5.5 x 8.5 in)" for a preset; a custom size in both units, "120 x 170 mm
+ * (4.724 x 6.693 in)", since the unit the editor typed it in is not stored.
+ */
 export function formatTrim(a: {
   trimPreset: string;
   trimWidthMm: number;
   trimHeightMm: number;
 }): string {
   const preset = findPreset(a.trimPreset);
+  if (!preset) return sizeInBothUnits(a.trimWidthMm, a.trimHeightMm);
   const size = `${mmText(a.trimWidthMm)} x ${mmText(a.trimHeightMm)} mm`;
-  if (!preset) return size;
   return preset.inches ? `${preset.label}` : `${preset.label} (${size})`;
+}
+
+/** A width x height in millimetres and inches, either first: "127 x 177.8 mm (5 x 7 in)". */
+export function sizeInBothUnits(widthMm: number, heightMm: number, inchesFirst = false): string {
+  const mm = `${mmText(widthMm)} x ${mmText(heightMm)} mm`;
+  const inches = `${roundTo(mmToIn(widthMm), 3)} x ${roundTo(mmToIn(heightMm), 3)} in`;
+  return inchesFirst ? `${inches} (${mm})` : `${mm} (${inches})`;
 }
 
 /** A length in both units, e.g. "3.175 mm (0.125 in)". */
