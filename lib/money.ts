@@ -13,6 +13,39 @@ export interface Money {
   currency: string;
 }
 
+/**
+ * Currencies a collective may keep its anthology's money in, as ISO 4217 codes. Only currencies
+ * whose minor unit is a hundredth (ISO 4217 minor unit 2) are offered, since amounts are stored
+ * as integer cents; USD first as the default.
+ */
+export const CURRENCIES = [
+  "USD",
+  "CAD",
+  "EUR",
+  "GBP",
+  "AUD",
+  "NZD",
+  "CHF",
+  "SEK",
+  "NOK",
+  "DKK",
+  "MXN",
+  "ZAR",
+] as const;
+export type Currency = (typeof CURRENCIES)[number];
+export const DEFAULT_CURRENCY: Currency = "USD";
+
+/** True for a code Quireline offers (upper case, as ISO 4217 writes it). */
+export function isCurrency(code: string): code is Currency {
+  return (CURRENCIES as readonly string[]).includes(code);
+}
+
+/** "Euro (EUR)" for a picker; the name comes from Intl. */
+export function currencyLabel(code: Currency, locale = "en"): string {
+  const name = new Intl.DisplayNames([locale], { type: "currency" }).of(code) ?? code;
+  return `${name} (${code})`;
+}
+
 /** Throws unless the value is a safe integer number of cents. */
 export function assertCents(value: number, name = "amount"): Cents {
   if (!Number.isSafeInteger(value))
@@ -32,7 +65,10 @@ export function parseCents(text: string): Cents {
   return assertCents(match[1] === "-" ? -cents : cents);
 }
 
-/** Formats cents for people, e.g. 123456 USD → "$1,234.56". */
+/**
+ * Formats cents for people with Intl.NumberFormat, the one place money is written out:
+ * 123456 USD in en-US → "$1,234.56", 123450 EUR in en-GB → "€1,234.50".
+ */
 export function formatCents(cents: Cents, currency = "USD", locale = "en-US"): string {
   assertCents(cents);
   return new Intl.NumberFormat(locale, {

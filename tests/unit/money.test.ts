@@ -1,5 +1,16 @@
 import { describe, expect, it } from "vitest";
-import { divideCents, formatCents, parseCents, priceOf, splitCents, sumCents } from "@/lib/money";
+import {
+  CURRENCIES,
+  currencyLabel,
+  DEFAULT_CURRENCY,
+  divideCents,
+  formatCents,
+  isCurrency,
+  parseCents,
+  priceOf,
+  splitCents,
+  sumCents,
+} from "@/lib/money";
 
 describe("largest-remainder split", () => {
   it("the Hare-quota example: 10 seats among 47000/16000/15800/12000/6100/3100 votes → 5 2 1 1 1 0", () => {
@@ -73,5 +84,38 @@ describe("cents arithmetic", () => {
   it("formats for people", () => {
     expect(formatCents(123456, "USD", "en-US")).toBe("$1,234.56");
     expect(formatCents(-5, "USD", "en-US")).toBe("-$0.05");
+  });
+
+  // Unicode CLDR locale data, as Node's Intl.NumberFormat carries it.
+  it("formats the collective's currency in the reader's locale", () => {
+    expect(formatCents(123450, "EUR", "en-GB")).toBe("€1,234.50");
+    expect(formatCents(123450, "GBP", "en-GB")).toBe("£1,234.50");
+    expect(formatCents(123450, "CAD", "en-CA")).toBe("$1,234.50");
+    // Outside Canada a Canadian dollar is told apart from the US dollar.
+    expect(formatCents(123450, "CAD", "en-US")).toBe("CA$1,234.50");
+    expect(formatCents(2500, "NZD", "en-NZ")).toBe("$25.00");
+  });
+});
+
+describe("currencies", () => {
+  it("offers only ISO 4217 codes with two-decimal minor units, USD first", () => {
+    expect(CURRENCIES[0]).toBe(DEFAULT_CURRENCY);
+    for (const code of CURRENCIES) {
+      expect(code).toMatch(/^[A-Z]{3}$/);
+      const digits = new Intl.NumberFormat("en", {
+        style: "currency",
+        currency: code,
+      }).resolvedOptions().maximumFractionDigits;
+      expect(digits, code).toBe(2);
+    }
+  });
+
+  it("knows its codes and names them", () => {
+    expect(isCurrency("EUR")).toBe(true);
+    expect(isCurrency("eur")).toBe(false);
+    // ISO 4217: JPY has no minor unit, so it cannot be kept as cents.
+    expect(isCurrency("JPY")).toBe(false);
+    expect(currencyLabel("EUR")).toBe("Euro (EUR)");
+    expect(currencyLabel("NZD")).toBe("New Zealand Dollar (NZD)");
   });
 });
