@@ -79,15 +79,19 @@ export default async function MembersPage({
         <thead className="text-ink-faint">
           <tr>
             <th className="py-1 font-normal">Name</th>
-            <th className="py-1 font-normal">E-mail</th>
+            {/* On a phone the address goes under the name, so the role picker still fits. */}
+            <th className="hidden py-1 font-normal sm:table-cell">E-mail</th>
             <th className="py-1 font-normal">Role</th>
           </tr>
         </thead>
         <tbody>
           {members.map((m) => (
             <tr key={m.userId} className="border-t border-ink/10">
-              <td className="py-1">{m.name}</td>
-              <td className="py-1 font-mono">{m.email}</td>
+              <td className="py-1">
+                {m.name}
+                <span className="block break-all font-mono text-xs sm:hidden">{m.email}</span>
+              </td>
+              <td className="hidden py-1 font-mono sm:table-cell">{m.email}</td>
               <td className="py-1">
                 {mayManage ? (
                   <form action={setRole} className="flex flex-wrap items-center gap-2">
@@ -149,7 +153,7 @@ export default async function MembersPage({
             <tbody>
               {pending.map((p) => (
                 <tr key={p.id} className="border-t border-ink/10">
-                  <td className="py-1 font-mono">{p.email}</td>
+                  <td className="break-all py-1 font-mono">{p.email}</td>
                   <td className="py-1">{ROLE_LABELS[p.role]}</td>
                   <td className="py-1">{formatDate(p.expiresAt)}</td>
                   {mayManage ? (

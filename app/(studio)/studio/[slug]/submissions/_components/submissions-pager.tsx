@@ -25,7 +25,7 @@ export function SubmissionsPager({
     <nav
       aria-label="Pages of submissions"
       data-testid="pager"
-      className="flex flex-nowrap items-center gap-2 whitespace-nowrap sm:gap-3"
+      className="flex flex-nowrap items-center gap-1.5 whitespace-nowrap sm:gap-3"
     >
       <span data-testid="page-summary" aria-live="polite">
         {shown ? `${first}–${first + shown - 1}` : "0"} of {total}
