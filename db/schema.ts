@@ -172,6 +172,8 @@ export const memberships = mysqlTable(
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
     role: varchar("role", { length: 16, enum: ROLES }).$type<Role>().notNull(),
+    /** An editor or lead who asked to be e-mailed when a piece is submitted. */
+    notifyNewPieces: boolean("notify_new_pieces").notNull().default(false),
     createdAt: createdAt(),
   },
   (t) => [

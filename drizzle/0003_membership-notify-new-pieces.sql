@@ -1,0 +1,1 @@
+ALTER TABLE `membership` ADD `notify_new_pieces` boolean DEFAULT false NOT NULL;
