@@ -22,19 +22,25 @@ export function ScrollCue({
     if (!el) return;
     const measure = () => {
       const hidden = el.scrollWidth - el.clientWidth;
-      setOverflow({
-        any: hidden > 1,
-        left: el.scrollLeft > 1,
-        right: el.scrollLeft < hidden - 1,
-      });
+      const next = { any: hidden > 1, left: el.scrollLeft > 1, right: el.scrollLeft < hidden - 1 };
+      setOverflow((now) =>
+        now.any === next.any && now.left === next.left && now.right === next.right ? now : next,
+      );
     };
     measure();
-    const observer = new ResizeObserver(measure);
-    observer.observe(el);
-    if (el.firstElementChild) observer.observe(el.firstElementChild);
+    // The box changes size with the window; its content with every page of rows that arrives.
+    const resized = new ResizeObserver(measure);
+    resized.observe(el);
+    const changed = new MutationObserver(() => {
+      for (const child of el.children) resized.observe(child);
+      measure();
+    });
+    changed.observe(el, { childList: true, subtree: true });
+    for (const child of el.children) resized.observe(child);
     el.addEventListener("scroll", measure, { passive: true });
     return () => {
-      observer.disconnect();
+      resized.disconnect();
+      changed.disconnect();
       el.removeEventListener("scroll", measure);
     };
   }, []);
