@@ -7,6 +7,7 @@ import { callPhase } from "@/lib/stages";
 import { formatDateTime } from "@/lib/dates";
 import { pieceSchemaFor } from "@/lib/validations/piece";
 import type { PieceCreatedAnswer } from "@/lib/wire/submissions";
+import { mailPieceSubmitted } from "@/server/piece-submitted";
 
 type Context = { params: Promise<{ slug: string }> };
 
@@ -20,7 +21,8 @@ export const GET = apiRoute(async (_request, { params }: Context) => {
 /**
  * Sends a new piece to the anthology's open call. Anyone signed in may; a person who is not yet a
  * member becomes a contributor. Editors, leads and finishers of the anthology are refused, as are
- * pieces past the call's per-person limit and pieces after the call has closed.
+ * pieces past the call's per-person limit and pieces after the call has closed. The contributor
+ * is sent a receipt.
  */
 export const POST = apiRoute(async (request, { params }: Context) => {
   const { slug } = await params;
@@ -50,6 +52,7 @@ export const POST = apiRoute(async (request, { params }: Context) => {
   if (early) throw new HttpError(early.status, early.message);
   const input = await readJson(request, pieceSchemaFor(callRulesOf(call)));
   const piece = await createPiece(anthology, call, user.id, input);
+  await mailPieceSubmitted(anthology, piece, user.id);
   return Response.json(
     {
       piece: {
