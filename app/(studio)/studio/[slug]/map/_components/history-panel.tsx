@@ -11,6 +11,9 @@ export function HistoryPanel({ events }: { events: MapEventView[] }) {
         <p className="text-sm text-ink-soft">No changes yet.</p>
       ) : (
         <ol
+          // It scrolls, so keyboard users need to be able to reach it (WCAG 2.2 SC 2.1.1).
+          tabIndex={0}
+          aria-labelledby="history-title"
           className="flex max-h-72 flex-col gap-1.5 overflow-y-auto text-xs"
           data-testid="map-history"
         >

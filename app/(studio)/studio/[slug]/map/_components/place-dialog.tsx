@@ -4,6 +4,7 @@ import { inputClass } from "@/components/ui/field";
 import type { MapState } from "@/lib/map/types";
 import { checkedChange } from "@/lib/map-edits/apply";
 import type { MapChange } from "@/lib/validations/page-map";
+import { slotButtonId } from "./slot-card";
 import { spanLabel, validStarts, type PieceView } from "./view-model";
 
 /**
@@ -30,11 +31,18 @@ export function PlaceDialog({
   const [typed, setTyped] = useState("");
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  // Where the piece went, once saved: closing hands focus to that page rather than to the tray
+  // entry that has just gone, which would drop it on the page body (WCAG 2.2 SC 2.4.3).
+  const placedAt = useRef<number | null>(null);
 
   useEffect(() => {
     const dialog = ref.current;
+    const placed = placedAt;
     if (dialog && !dialog.open) dialog.showModal();
-    return () => dialog?.close();
+    return () => {
+      dialog?.close();
+      if (placed.current !== null) document.getElementById(slotButtonId(placed.current))?.focus();
+    };
   }, []);
 
   const submit = async (event: FormEvent) => {
@@ -54,8 +62,10 @@ export function PlaceDialog({
     setBusy(true);
     const saved = await onConfirm(change);
     setBusy(false);
-    if (saved) onClose();
-    else setError("The change was not saved; the message above the map says why.");
+    if (saved) {
+      placedAt.current = startPage;
+      onClose();
+    } else setError("The change was not saved; the message above the map says why.");
   };
 
   const shape =

@@ -6,6 +6,9 @@ import type { PieceView } from "./view-model";
 
 export type SlotMark = "drop-ok" | "drop-no" | null;
 
+/** The id of a page's select button, so focus can come back to a page after a dialog. */
+export const slotButtonId = (page: number) => `map-page-${page}`;
+
 /** One page of the map: what it holds or is kept for, its lock, and the rule messages about it. */
 export function SlotCard({
   slot,
@@ -57,7 +60,9 @@ export function SlotCard({
         type="button"
         onClick={() => onSelect(slot.page)}
         aria-pressed={selected}
-        aria-label={`Page ${slot.page}: ${what}${slot.locked ? ", locked" : ""}${messages.length ? `, ${messages.length} rule ${messages.length === 1 ? "message" : "messages"}` : ""}`}
+        id={slotButtonId(slot.page)}
+        // Starts with the visible "p. N" so speech input can say what it sees (WCAG 2.2 SC 2.5.3).
+        aria-label={`p. ${slot.page}: ${what}${slot.locked ? ", locked" : ""}${messages.length ? `, ${messages.length} rule ${messages.length === 1 ? "message" : "messages"}` : ""}`}
         className="flex items-center justify-between text-left font-mono text-[11px] text-ink-soft hover:text-ink"
         data-testid={`slot-select-${slot.page}`}
       >
