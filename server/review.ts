@@ -8,7 +8,7 @@ import { appUrl, sendLoggedMail } from "@/server/mail";
 
 export type StatusChangeOutcome =
   | { pieceId: number; changed: true; from: PieceStatus; to: PieceStatus; mailed: boolean | null }
-  | { pieceId: number; changed: false; reason: string };
+  | { pieceId: number; changed: false; reason: string; needsConfirm?: true };
 
 /**
  * An editor moves one piece: the move is recorded (db/queries/review.ts), then the contributor is
@@ -19,10 +19,13 @@ export async function movePiece(
   actor: { id: string; name: string | null },
   pieceId: number,
   to: PieceStatus,
-  options: { message?: string; expectedFrom?: PieceStatus } = {},
+  options: { message?: string; expectedFrom?: PieceStatus; confirmAccept?: boolean } = {},
 ): Promise<StatusChangeOutcome> {
   const move = await recordPieceMove(anthology, actor, pieceId, to, options);
-  if (!move.changed) return { pieceId, changed: false, reason: move.reason };
+  if (!move.changed)
+    return move.needsConfirm
+      ? { pieceId, changed: false, reason: move.reason, needsConfirm: true }
+      : { pieceId, changed: false, reason: move.reason };
   let mailed: boolean | null = null;
   if (STATUSES_THAT_EMAIL.includes(to)) {
     mailed = false;
@@ -62,10 +65,11 @@ export async function movePieces(
   pieceIds: number[],
   to: PieceStatus,
   message?: string,
+  confirmAccept = false,
 ) {
   const outcomes: StatusChangeOutcome[] = [];
   for (const pieceId of pieceIds)
-    outcomes.push(await movePiece(anthology, actor, pieceId, to, { message }));
+    outcomes.push(await movePiece(anthology, actor, pieceId, to, { message, confirmAccept }));
   return {
     changed: outcomes.filter((o) => o.changed),
     refused: outcomes.filter((o) => !o.changed),

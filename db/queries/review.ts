@@ -3,6 +3,7 @@ import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from "dri
 import { db, schema } from "@/db";
 import { fileVersionSummary } from "./submissions";
 import { PIECE_KINDS, PIECE_STATUS_LABELS, PIECE_STATUSES, type PieceStatus } from "@/lib/domain";
+import { acceptWarning } from "@/lib/pieces/accept-warning";
 import { editorMoveRefusal } from "@/lib/pieces/status";
 import { PIECE_VERDICT_RANK, PIECE_VERDICTS, type PieceVerdict } from "@/lib/pieces/verdict";
 import type { SubmissionSort, SubmissionsQuery } from "@/lib/validations/review";
@@ -10,6 +11,7 @@ import type { Anthology } from "./anthologies";
 
 const p = schema.pieces;
 const u = schema.users;
+const pp = schema.piecePages;
 
 /* ---------- The submissions table ---------- */
 
@@ -135,7 +137,7 @@ export async function findPieceAnthologySlug(pieceId: number): Promise<string | 
 /* ---------- Status changes ---------- */
 
 export type RecordedMove =
-  | { changed: false; reason: string }
+  | { changed: false; reason: string; needsConfirm?: true }
   | {
       changed: true;
       from: PieceStatus;
@@ -153,11 +155,17 @@ export async function recordPieceMove(
   actor: { id: string },
   pieceId: number,
   to: PieceStatus,
-  options: { message?: string; expectedFrom?: PieceStatus } = {},
+  options: { message?: string; expectedFrom?: PieceStatus; confirmAccept?: boolean } = {},
 ): Promise<RecordedMove> {
   return db.transaction(async (tx) => {
     const [row] = await tx
-      .select({ status: p.status, title: p.title, contributorId: p.contributorId })
+      .select({
+        status: p.status,
+        title: p.title,
+        contributorId: p.contributorId,
+        verdict: p.verdict,
+        pageCount: p.pageCount,
+      })
       .from(p)
       .where(and(eq(p.id, pieceId), eq(p.anthologyId, anthology.id)))
       .for("update");
@@ -171,6 +179,14 @@ export async function recordPieceMove(
     }
     const refused = editorMoveRefusal(row.status, to);
     if (refused) return { changed: false as const, reason: refused };
+    if (to === "accepted" && !options.confirmAccept) {
+      const [files] = await tx
+        .select({ n: count(pp.currentVersionId) })
+        .from(pp)
+        .where(eq(pp.pieceId, pieceId));
+      const warning = acceptWarning({ ...row, pagesWithFiles: Number(files?.n ?? 0) });
+      if (warning) return { changed: false as const, reason: warning, needsConfirm: true as const };
+    }
     await tx.update(p).set({ status: to }).where(eq(p.id, pieceId));
     const [event] = await tx
       .insert(schema.pieceEvents)
@@ -189,6 +205,35 @@ export async function recordPieceMove(
       contributorId: row.contributorId,
       eventId: event?.id,
     };
+  });
+}
+
+/**
+ * Why accepting each of these pieces needs confirmation (pieces that can print, or are not in
+ * this anthology, are left out). Read before a bulk move so nothing moves until the editor agrees.
+ */
+export async function acceptWarnings(
+  anthologyId: number,
+  pieceIds: number[],
+): Promise<{ pieceId: number; warning: string }[]> {
+  if (pieceIds.length === 0) return [];
+  const rows = await db
+    .select({
+      id: p.id,
+      title: p.title,
+      status: p.status,
+      verdict: p.verdict,
+      pageCount: p.pageCount,
+      pagesWithFiles: count(pp.currentVersionId),
+    })
+    .from(p)
+    .leftJoin(pp, eq(pp.pieceId, p.id))
+    .where(and(eq(p.anthologyId, anthologyId), inArray(p.id, pieceIds)))
+    .groupBy(p.id);
+  return rows.flatMap((row) => {
+    if (editorMoveRefusal(row.status, "accepted")) return [];
+    const warning = acceptWarning({ ...row, pagesWithFiles: Number(row.pagesWithFiles) });
+    return warning ? [{ pieceId: row.id, warning }] : [];
   });
 }
 

@@ -119,9 +119,17 @@ const optionalMessage = multiLineText(TEXT_CAP.statusMessage)
 
 const targetStatus = z.enum(PIECE_STATUSES, { error: "Choose a status" });
 
+/** `true` once the editor has seen a warning (accepting a piece that cannot print) and goes ahead. */
+const confirmFlag = z.boolean({ error: "confirm is true or false" }).default(false);
+
 /** One piece: POST /api/pieces/[id]/status. `from` guards against a change someone made meanwhile. */
 export const pieceStatusChangeSchema = z
-  .object({ to: targetStatus, message: optionalMessage, from: z.enum(PIECE_STATUSES).optional() })
+  .object({
+    to: targetStatus,
+    message: optionalMessage,
+    from: z.enum(PIECE_STATUSES).optional(),
+    confirm: confirmFlag,
+  })
   .superRefine(requireFixMessage);
 export type PieceStatusChangeInput = z.input<typeof pieceStatusChangeSchema>;
 
@@ -137,6 +145,7 @@ export const bulkStatusChangeSchema = z
       .transform((ids) => [...new Set(ids)]),
     to: targetStatus,
     message: optionalMessage,
+    confirm: confirmFlag,
   })
   .superRefine(requireFixMessage);
 export type BulkStatusChangeInput = z.input<typeof bulkStatusChangeSchema>;

@@ -28,7 +28,7 @@ export interface SubmissionsPage {
 /** One piece's move: done (and whether its contributor was e-mailed), or refused with the reason. */
 export type PieceMoveOutcome =
   | { pieceId: number; changed: true; from: PieceStatus; to: PieceStatus; mailed: boolean | null }
-  | { pieceId: number; changed: false; reason: string };
+  | { pieceId: number; changed: false; reason: string; needsConfirm?: true };
 
 export type PieceMoved = Extract<PieceMoveOutcome, { changed: true }>;
 export type PieceMoveRefused = Extract<PieceMoveOutcome, { changed: false }>;
@@ -38,6 +38,18 @@ export type PieceMoveAnswer = PieceMoved;
 export interface PieceMoveRefusalAnswer {
   error: string;
   refused: PieceMoveRefused;
+}
+
+/**
+ * 409 from either status route when accepting would put a piece that cannot print (no files,
+ * pages without a file, a file that won't print) into the book: nothing moved; send the same
+ * request again with `confirm: true` to go ahead.
+ */
+export interface AcceptWarningAnswer {
+  error: string;
+  warning: string;
+  needsConfirm: true;
+  pieces: { pieceId: number; warning: string }[];
 }
 
 /** POST /api/anthologies/[slug]/submissions/status: each piece changed or refused on its own. */

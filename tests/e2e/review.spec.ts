@@ -98,6 +98,11 @@ test("the lead filters, sorts, opens a piece and accepts it; the contributor is 
   await page.getByLabel("In the book").check();
   await page.getByLabel(/Message to Marisol/).fill("It opens the mudflat section.");
   await page.getByRole("button", { name: "Move to “In the book”" }).click();
+  // The piece has no files yet: the editor is warned and confirms.
+  await expect(page.getByTestId("accept-warning")).toContainText("has no files yet");
+  await expect(page.getByTestId("piece-status")).toHaveText("Waiting for a read");
+  await page.getByRole("button", { name: "Accept anyway" }).click();
+  await expect(page.getByTestId("accept-warning")).toHaveCount(0);
   await expect(page.getByTestId("status-result")).toContainText("has been e-mailed");
   await expect(page.getByTestId("piece-status")).toHaveText("In the book");
   await expect(page.getByTestId("status-history")).toContainText("It opens the mudflat section.");

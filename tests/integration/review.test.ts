@@ -424,6 +424,8 @@ describe("moving pieces", () => {
       pieceIds: [ids.barnacle, ids.heron, ids.foghorn, ids.driftwood, 987654321, otherPieceId],
       to: "accepted",
       message: "Welcome aboard.",
+      // The fixtures have no files; the warning about that is tested in accept-warning.test.ts.
+      confirm: true,
     });
     expect(response.status).toBe(200);
     const body = (await response.json()) as { changed: Outcome[]; refused: Outcome[] };

@@ -38,9 +38,15 @@ export function BulkStatusBar({
     to: PieceStatus;
     titles: Map<number, string>;
   }>();
+  const [warning, setWarning] = useState<string>();
 
   const mutation = useMutation({
-    mutationFn: (body: { pieceIds: number[]; to: PieceStatus; message?: string }) =>
+    mutationFn: (body: {
+      pieceIds: number[];
+      to: PieceStatus;
+      message?: string;
+      confirm?: boolean;
+    }) =>
       fetchJson<BulkMoveAnswer>(`/api/anthologies/${slug}/submissions/status`, {
         method: "POST",
         json: body,
@@ -51,9 +57,9 @@ export function BulkStatusBar({
   const needsMessage = to === "fix-requested";
   const emails = to !== "" && STATUSES_THAT_EMAIL.includes(to);
 
-  const submit = async (event: FormEvent) => {
-    event.preventDefault();
+  const move = async (confirm: boolean) => {
     setFieldError(undefined);
+    setWarning(undefined);
     if (!to) return setFieldError("Choose where to move them");
     if (needsMessage && !message.trim())
       return setFieldError("Say what to fix: the contributors receive this message");
@@ -63,14 +69,22 @@ export function BulkStatusBar({
         pieceIds: selected.map((s) => s.id),
         to,
         message: message.trim() || undefined,
+        confirm: confirm || undefined,
       });
       setAnswer({ answer: result, to, titles });
       if (result.changed.length) setMessage("");
       onDone(result.changed.map((c) => c.pieceId));
     } catch (error) {
-      if (error instanceof ApiError && error.fieldMessage("message"))
+      if (error instanceof ApiError && error.body.needsConfirm === true)
+        setWarning(String(error.body.warning ?? error.message));
+      else if (error instanceof ApiError && error.fieldMessage("message"))
         setFieldError(error.fieldMessage("message"));
     }
+  };
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    void move(false);
   };
 
   const messageId = `${uid}-message`;
@@ -140,7 +154,22 @@ export function BulkStatusBar({
           </div>
         </form>
       ) : null}
+      {warning && selected.length > 0 ? (
+        <Notice tone="warn" testId="bulk-accept-warning" title="Some pieces may not print">
+          <p>{warning}</p>
+          <div className="mt-2 flex flex-wrap gap-2">
+            <Button type="button" busy={mutation.isPending} onClick={() => void move(true)}>
+              Accept anyway
+            </Button>
+            <Button type="button" variant="quiet" onClick={() => setWarning(undefined)}>
+              Keep them where they are
+            </Button>
+          </div>
+        </Notice>
+      ) : null}
       {mutation.isError &&
+      !warning &&
+      !(mutation.error instanceof ApiError && mutation.error.body.needsConfirm === true) &&
       !(mutation.error instanceof ApiError && mutation.error.fields.message) ? (
         <Notice tone="error" testId="bulk-error" title="Nothing was moved">
           {mutation.error.message} Your selection and message are kept; try again.

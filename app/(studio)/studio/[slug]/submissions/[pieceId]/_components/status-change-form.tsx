@@ -29,9 +29,15 @@ export function StatusChangeForm({
   const [message, setMessage] = useState("");
   const [fieldError, setFieldError] = useState<string>();
   const [done, setDone] = useState<PieceMoveAnswer>();
+  const [warning, setWarning] = useState<string>();
 
   const mutation = useMutation({
-    mutationFn: (body: { to: PieceStatus; from: PieceStatus; message?: string }) =>
+    mutationFn: (body: {
+      to: PieceStatus;
+      from: PieceStatus;
+      message?: string;
+      confirm?: boolean;
+    }) =>
       fetchJson<PieceMoveAnswer>(`/api/pieces/${pieceId}/status`, { method: "POST", json: body }),
   });
 
@@ -46,10 +52,10 @@ export function StatusChangeForm({
   const emails = to !== "" && STATUSES_THAT_EMAIL.includes(to);
   const needsMessage = to === "fix-requested";
 
-  const submit = async (event: FormEvent) => {
-    event.preventDefault();
+  const move = async (confirm: boolean) => {
     setFieldError(undefined);
     setDone(undefined);
+    setWarning(undefined);
     if (!to) return setFieldError("Choose the new status");
     if (needsMessage && !message.trim())
       return setFieldError(`Say what to fix: ${contributorName} receives this message`);
@@ -58,15 +64,23 @@ export function StatusChangeForm({
         to,
         from: status,
         message: message.trim() || undefined,
+        confirm: confirm || undefined,
       });
       setDone(moved);
       setTo("");
       setMessage("");
       startRefresh(() => router.refresh());
     } catch (error) {
-      if (error instanceof ApiError && error.fieldMessage("message"))
+      if (error instanceof ApiError && error.body.needsConfirm === true)
+        setWarning(String(error.body.warning ?? error.message));
+      else if (error instanceof ApiError && error.fieldMessage("message"))
         setFieldError(error.fieldMessage("message"));
     }
+  };
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    void move(false);
   };
 
   return (
@@ -121,7 +135,22 @@ export function StatusChangeForm({
             ? `Move to “${PIECE_STATUS_LABELS[to]}”`
             : "Change status"}
       </Button>
+      {warning ? (
+        <Notice tone="warn" testId="accept-warning" title="This piece may not print">
+          <p>{warning}</p>
+          <div className="mt-2 flex flex-wrap gap-2">
+            <Button type="button" busy={mutation.isPending} onClick={() => void move(true)}>
+              Accept anyway
+            </Button>
+            <Button type="button" variant="quiet" onClick={() => setWarning(undefined)}>
+              Keep it where it is
+            </Button>
+          </div>
+        </Notice>
+      ) : null}
       {mutation.isError &&
+      !warning &&
+      !(mutation.error instanceof ApiError && mutation.error.body.needsConfirm === true) &&
       !(mutation.error instanceof ApiError && mutation.error.fields.message) ? (
         <Notice tone="error" testId="status-error" title="The status did not change">
           <p>{mutation.error.message}</p>
