@@ -150,6 +150,12 @@ export const bulkStatusChangeSchema = z
   .superRefine(requireFixMessage);
 export type BulkStatusChangeInput = z.input<typeof bulkStatusChangeSchema>;
 
+/** The signed-in editor's own notice setting: PUT /api/anthologies/[slug]/notifications. */
+export const notificationSettingsSchema = z.object({
+  newPieces: z.boolean({ error: "newPieces is true or false" }),
+});
+export type NotificationSettingsInput = z.input<typeof notificationSettingsSchema>;
+
 /** An editors' note on a piece. */
 export const editorNoteSchema = z.object({
   body: multiLineText(TEXT_CAP.editorNote).min(1, "Write the note first"),

@@ -58,6 +58,12 @@ export interface BulkMoveAnswer {
   refused: PieceMoveRefused[];
 }
 
+/** GET/PUT /api/anthologies/[slug]/notifications: the signed-in editor's own setting. */
+export interface NotificationSettingsAnswer {
+  /** E-mail me when a piece is submitted. */
+  newPieces: boolean;
+}
+
 /** An editors' note; contributors never see these. */
 export interface EditorNoteView {
   id: number;

@@ -1,5 +1,6 @@
-// What a submission sends: the contributor's receipt (once per piece, even when sent again), read
-// back from the SMTP sink's outbox. Route modules are called directly with a stubbed session.
+// What a submission sends: the contributor's receipt and a notice to each editor who opted in on
+// the submissions page (each once per piece, even when sent again), read back from the SMTP
+// sink's outbox. Route modules are called directly with a stubbed session.
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool, schema } from "@/db";
@@ -20,9 +21,10 @@ vi.mock("@/auth", () => ({
 }));
 
 const piecesRoute = await import("@/app/api/anthologies/[slug]/pieces/route");
+const notificationsRoute = await import("@/app/api/anthologies/[slug]/notifications/route");
 const { mailPieceSubmitted } = await import("@/server/piece-submitted");
 
-let lead: TestPerson, editor: TestPerson, poet: TestPerson;
+let lead: TestPerson, editor: TestPerson, finisher: TestPerson, poet: TestPerson, poet2: TestPerson;
 let anthology: Awaited<ReturnType<typeof makeAnthologyWithCall>>;
 
 const as = (person: TestPerson | null) => {
@@ -51,6 +53,18 @@ async function submit(person: TestPerson, title: string) {
     .piece;
 }
 
+async function setting(person: TestPerson | null, method: "GET" | "PUT", body?: unknown) {
+  as(person);
+  const request = new Request("http://localhost/api", {
+    method,
+    headers: { "content-type": "application/json" },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
+  const route = method === "GET" ? notificationsRoute.GET : notificationsRoute.PUT;
+  const response = await route(request, { params: Promise.resolve({ slug: anthology.slug }) });
+  return { status: response.status, body: (await response.json()) as { newPieces?: boolean } };
+}
+
 const logFor = (pieceId: number, kind: string) =>
   db
     .select()
@@ -58,14 +72,17 @@ const logFor = (pieceId: number, kind: string) =>
     .where(and(eq(schema.emailLog.pieceId, pieceId), eq(schema.emailLog.kind, kind)));
 
 beforeAll(async () => {
-  [lead, editor, poet] = await Promise.all([
+  [lead, editor, finisher, poet, poet2] = await Promise.all([
     makePerson("lead"),
     makePerson("editor"),
+    makePerson("finisher"),
     makePerson("poet"),
+    makePerson("poet2"),
   ]);
   anthology = await makeAnthologyWithCall([
     { person: lead, role: "lead" },
     { person: editor, role: "editor" },
+    { person: finisher, role: "finisher" },
   ]);
 });
 
@@ -97,5 +114,66 @@ describe("the contributor's receipt", () => {
     );
     expect(receipts).toHaveLength(1);
     expect(await logFor(piece.id, "piece-receipt")).toHaveLength(1);
+  });
+});
+
+describe("the editors' notice of a new piece", () => {
+  it("is off until an editor turns it on for themselves; other roles may not set it", async () => {
+    expect(await setting(editor, "GET")).toEqual({ status: 200, body: { newPieces: false } });
+    expect(await setting(editor, "PUT", { newPieces: true })).toEqual({
+      status: 200,
+      body: { newPieces: true },
+    });
+    expect(await setting(editor, "GET")).toEqual({ status: 200, body: { newPieces: true } });
+    // The lead's own setting is untouched by the editor's.
+    expect(await setting(lead, "GET")).toEqual({ status: 200, body: { newPieces: false } });
+    expect((await setting(finisher, "PUT", { newPieces: true })).status).toBe(403);
+    expect((await setting(null, "PUT", { newPieces: true })).status).toBe(401);
+    expect((await setting(editor, "PUT", { newPieces: "yes" })).status).toBe(400);
+  });
+
+  it("goes to the editors who opted in, once per piece, and not to the others", async () => {
+    // A finisher's flag left on (say, from when they reviewed) sends nothing: the role decides.
+    await db
+      .update(schema.memberships)
+      .set({ notifyNewPieces: true })
+      .where(
+        and(
+          eq(schema.memberships.anthologyId, anthology.id),
+          eq(schema.memberships.userId, finisher.id),
+        ),
+      );
+    const title = `Heron Count ${Date.now().toString(36)}`;
+    const piece = await submit(poet2, title);
+    const notice = await waitForMessage({ to: editor.email, subject: new RegExp(title) });
+    expect(notice.subject).toBe(`New piece for ${anthology.title}: "${title}"`);
+    expect(notice.text).toContain(`Hello ${editor.name},`);
+    expect(notice.text).toContain(`${poet2.name} sent "${title}" (2 pages)`);
+    expect(notice.text).toContain(`/studio/${anthology.slug}/submissions/${piece.id}`);
+    await waitForMessage({ to: poet2.email, subject: new RegExp(title) });
+
+    expect(await mailPieceSubmitted(anthology, piece, poet2.id)).toEqual({
+      receipt: false,
+      notices: 0,
+    });
+    const log = await logFor(piece.id, "new-piece-notice");
+    expect(log.map((l) => l.toEmail)).toEqual([editor.email]);
+    expect(
+      (await listMessages({ to: editor.email })).filter((m) => m.subject.includes(title)),
+    ).toHaveLength(1);
+    for (const other of [lead, finisher])
+      expect(
+        (await listMessages({ to: other.email })).filter((m) => m.subject.includes(title)),
+      ).toHaveLength(0);
+  });
+
+  it("stops once the editor turns it off", async () => {
+    expect((await setting(editor, "PUT", { newPieces: false })).body).toEqual({
+      newPieces: false,
+    });
+    const title = `Quiet Heron ${Date.now().toString(36)}`;
+    const piece = await submit(poet2, title);
+    await waitForMessage({ to: poet2.email, subject: new RegExp(title) });
+    expect(await logFor(piece.id, "new-piece-notice")).toHaveLength(0);
   });
 });

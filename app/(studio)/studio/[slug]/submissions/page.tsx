@@ -1,12 +1,14 @@
 import { Suspense } from "react";
 import { requireAnthologyAccess } from "@/server/auth/guard";
+import { findNotifyNewPieces } from "@/db/queries/notifications";
+import { NewPieceNoticeToggle } from "./_components/new-piece-notice-toggle";
 import { SubmissionsTable } from "./_components/submissions-table";
 
 export const metadata = { title: "Submissions" };
 
 export default async function SubmissionsPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
-  const { anthology } = await requireAnthologyAccess(
+  const { anthology, user } = await requireAnthologyAccess(
     slug,
     "pieces:review",
     `/studio/${slug}/submissions`,
@@ -21,6 +23,12 @@ export default async function SubmissionsPage({ params }: { params: Promise<{ sl
           Contributors are e-mailed when their piece is shortlisted, accepted, declined or needs a
           fix.
         </p>
+        <div className="mt-3">
+          <NewPieceNoticeToggle
+            slug={anthology.slug}
+            initial={await findNotifyNewPieces(anthology.id, user.id)}
+          />
+        </div>
       </div>
       <Suspense fallback={<p className="text-sm text-ink-soft">Loading the table…</p>}>
         <SubmissionsTable slug={anthology.slug} />
