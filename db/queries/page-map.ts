@@ -169,10 +169,11 @@ async function payloadIn(
   tx: Tx,
   anthologyId: number,
   { canEdit, mayShowEmail }: MapViewer,
-  copies: number,
+  asked: number | undefined,
 ): Promise<MapPayload> {
   const [anthology] = await tx.select().from(a).where(eq(a.id, anthologyId));
   if (!anthology) throw new Error(`anthology ${anthologyId} vanished`);
+  const copies = asked ?? anthology.plannedCopies;
   const pieces = await readPieces(tx, anthologyId);
   const state = toState(anthology, await readSlots(tx, anthologyId, false), pieces);
   return {
@@ -184,6 +185,7 @@ async function payloadIn(
       printMethod: anthology.printMethod,
       paperCaliperMm: anthology.paperCaliperMm,
       coverStock: anthology.coverStock,
+      plannedCopies: anthology.plannedCopies,
     },
     version: anthology.mapVersion,
     state,
@@ -203,10 +205,13 @@ async function payloadIn(
   };
 }
 
-/** The map as the screen needs it, created from the page count target the first time. */
+/**
+ * The map as the screen needs it, created from the page count target the first time. The pass
+ * figures are for `copies`, or for the anthology's planned copies when none are asked for.
+ */
 export async function loadMap(
   anthology: Anthology,
-  opts: MapViewer & { copies: number },
+  opts: MapViewer & { copies?: number },
 ): Promise<MapPayload> {
   await ensureSlots(anthology);
   return db.transaction((tx) => payloadIn(tx, anthology.id, opts, opts.copies));
@@ -263,7 +268,7 @@ export async function changeMap(
   anthology: Anthology,
   user: SessionUser,
   request: MapChangeRequest,
-  { copies, mayShowEmail }: { copies: number; mayShowEmail: boolean },
+  { copies, mayShowEmail }: { copies?: number; mayShowEmail: boolean },
 ): Promise<ChangeOutcome> {
   const viewer: MapViewer = { canEdit: true, mayShowEmail };
   await ensureSlots(anthology);
@@ -319,6 +324,12 @@ export async function changeMap(
       changed: true,
     };
   });
+}
+
+/** Keeps the number of copies the editor plans to print, for the map's pass figures. */
+export async function savePlannedCopies(anthology: Anthology, copies: number): Promise<number> {
+  await db.update(a).set({ plannedCopies: copies }).where(eq(a.id, anthology.id));
+  return copies;
 }
 
 /** The current map and pieces, for the proposal (read only). */

@@ -27,6 +27,8 @@ export interface MapPayload {
     printMethod: PrintMethod;
     paperCaliperMm: number;
     coverStock: "self" | "separate";
+    /** Copies the editor plans to print, kept with the anthology; the default pass figures use it. */
+    plannedCopies: number;
   };
   version: number;
   state: MapState;
@@ -64,6 +66,10 @@ export interface ProposalAnswer {
   proposal: Proposal;
   check: MapCheck;
   passes: PassCount;
+}
+
+export interface PlannedCopiesAnswer {
+  copies: number;
 }
 
 export interface NoticesAnswer {

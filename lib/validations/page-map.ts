@@ -46,12 +46,16 @@ export const copiesSchema = z.coerce
   .min(1, "At least one copy")
   .max(100_000, "At most 100 000 copies");
 
-/** The map's query string: `?copies=` for the per-run pass figures (empty means the default). */
+/**
+ * The map's query string: `?copies=` for the per-run pass figures; absent or empty means the
+ * copies kept with the anthology (`planned_copies`).
+ */
 export const mapQuerySchema = z.object({
-  copies: z
-    .union([z.literal("").transform(() => COPIES_DEFAULT), copiesSchema])
-    .default(COPIES_DEFAULT),
+  copies: z.union([z.literal("").transform(() => undefined), copiesSchema]).optional(),
 });
+
+/** The sheet view's copies figure, kept with the anthology. */
+export const plannedCopiesSchema = z.object({ copies: copiesSchema });
 
 export const proposalRequestSchema = z.object({
   version: z.number().int().min(0),

@@ -1,7 +1,6 @@
 import { loadMap } from "@/db/queries/page-map";
 import { requireAnthologyAccess } from "@/server/auth/guard";
 import { can } from "@/lib/auth/policy";
-import { COPIES_DEFAULT } from "@/lib/validations/page-map";
 import { MapScreen } from "./_components/map-screen";
 
 export const metadata = { title: "Page map" };
@@ -12,7 +11,6 @@ export default async function PageMapPage({ params }: { params: Promise<{ slug: 
   const initial = await loadMap(anthology, {
     canEdit: can(role, "map:edit"),
     mayShowEmail: can(role, "contributors:private-data"),
-    copies: COPIES_DEFAULT,
   });
   return (
     <div className="flex flex-col gap-4">

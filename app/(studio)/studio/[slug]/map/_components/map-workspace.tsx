@@ -22,9 +22,9 @@ import type {
   MapPayload,
   MapRefusalAnswer,
   NoticesAnswer,
+  PlannedCopiesAnswer,
   ProposalAnswer,
 } from "@/lib/map-edits/payload";
-import { COPIES_DEFAULT } from "@/lib/validations/page-map";
 import type { MapChange } from "@/lib/validations/page-map";
 import { pageKeyboardCoordinates, pageOfDropId, TRAY_DROP_ID, type DragData } from "./drag";
 import { HistoryPanel } from "./history-panel";
@@ -49,7 +49,8 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
   const map = query.data;
   const { send, feedback, setFeedback, saving } = useMapChanges(slug);
   const [view, setView] = useState<View>("reader");
-  const [copiesText, setCopiesText] = useState(String(COPIES_DEFAULT));
+  const [copiesText, setCopiesText] = useState(String(initial.anthology.plannedCopies));
+  const [copiesNote, setCopiesNote] = useState<string | null>(null);
   const [selectedPage, setSelectedPage] = useState<number | null>(null);
   const [dialog, setDialog] = useState<{ mode: "place" | "move"; pieceId: number } | null>(null);
   const [drag, setDrag] = useState<DragData | null>(null);
@@ -64,7 +65,27 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
   const copiesNumber = Number(copiesText);
   const copiesValid =
     Number.isInteger(copiesNumber) && copiesNumber >= 1 && copiesNumber <= 100_000;
-  const copies = copiesValid ? copiesNumber : COPIES_DEFAULT;
+  const savedCopies = map.anthology.plannedCopies;
+  const copies = copiesValid ? copiesNumber : savedCopies;
+
+  // The copies figure is kept with the anthology, so it is the same after a reload.
+  const saveCopies = async () => {
+    if (!map.canEdit || !copiesValid || copiesNumber === savedCopies) return;
+    try {
+      const body = await fetchJson<PlannedCopiesAnswer>(`/api/anthologies/${slug}/map/copies`, {
+        method: "PUT",
+        json: { copies: copiesNumber },
+        failure: (status) => `The copies were not saved (${status}).`,
+        unreachable: "The server did not answer; the copies were not saved.",
+      });
+      queryClient.setQueryData<MapPayload>(mapKey(slug), (old) =>
+        old ? { ...old, anthology: { ...old.anthology, plannedCopies: body.copies } } : old,
+      );
+      setCopiesNote(`Kept: ${body.copies} copies.`);
+    } catch (error) {
+      setCopiesNote(error instanceof Error ? error.message : "The copies were not saved.");
+    }
+  };
 
   const shown = proposal ? proposal.proposal.state : map.state;
   const editable = map.canEdit && proposal === null;
@@ -270,14 +291,26 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
               data-testid="copies"
               inputMode="numeric"
               value={copiesText}
-              onChange={(e) => setCopiesText(e.target.value)}
+              onChange={(e) => {
+                setCopiesText(e.target.value);
+                setCopiesNote(null);
+              }}
+              onBlur={() => void saveCopies()}
+              onKeyDown={(e) => {
+                if (e.key === "Enter") void saveCopies();
+              }}
               aria-invalid={!copiesValid || undefined}
               className={`${inputClass} w-24 py-1`}
             />
           </label>
           {!copiesValid ? (
             <span className="text-xs text-persimmon-dark">
-              Copies: a whole number from 1 to 100 000 (showing {COPIES_DEFAULT}).
+              Copies: a whole number from 1 to 100 000 (showing {savedCopies}).
+            </span>
+          ) : null}
+          {copiesNote ? (
+            <span className="text-xs text-ink-soft" aria-live="polite" data-testid="copies-note">
+              {copiesNote}
             </span>
           ) : null}
           <span className="text-sm text-ink-soft">

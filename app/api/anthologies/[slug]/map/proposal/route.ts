@@ -5,7 +5,7 @@ import { checkMap } from "@/lib/map/check";
 import { countPasses } from "@/lib/map/passes";
 import { proposePlacement } from "@/lib/map/propose";
 import type { MapRefusalAnswer, ProposalAnswer } from "@/lib/map-edits/payload";
-import { COPIES_DEFAULT, proposalRequestSchema } from "@/lib/validations/page-map";
+import { proposalRequestSchema } from "@/lib/validations/page-map";
 
 /**
  * Proposes where the pieces waiting in the tray go, around what is placed, reserved and locked.
@@ -15,7 +15,7 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ slu
   const { slug } = await params;
   const { anthology, role } = await requireApiAccess(slug, "map:edit");
   const input = await readJson(request, proposalRequestSchema);
-  const copies = input.copies ?? COPIES_DEFAULT;
+  const copies = input.copies ?? anthology.plannedCopies;
   const { version, state } = await readMapState(anthology);
   if (version !== input.version) {
     const body: MapRefusalAnswer = {
