@@ -259,6 +259,24 @@ async function writeSlots(
   if (inserts.length) await tx.insert(s).values(inserts);
 }
 
+/** Writes `left_out` for the pieces whose mark the change turned over. */
+async function writeLeftOut(
+  tx: Tx,
+  anthologyId: number,
+  before: MapState,
+  next: MapState,
+): Promise<void> {
+  const was = new Map(before.pieces.map((x) => [x.id, Boolean(x.leftOut)]));
+  for (const piece of next.pieces) {
+    const leftOut = Boolean(piece.leftOut);
+    if (was.get(piece.id) === leftOut) continue;
+    await tx
+      .update(p)
+      .set({ leftOut })
+      .where(and(eq(p.anthologyId, anthologyId), eq(p.id, piece.id)));
+  }
+}
+
 /**
  * Applies one change in one transaction: the anthology row is locked (so changes to one map go
  * one at a time), the version compared, the change run through the map engine and the save rule,
@@ -278,8 +296,22 @@ export async function changeMap(
     if (row.mapVersion !== request.version)
       return { kind: "stale", map: await payloadIn(tx, row.id, viewer, copies) };
     const slots = await readSlots(tx, row.id, true);
-    const state = toState(row, slots, await readPieces(tx, row.id));
-    const result = checkedChange(state, request.change);
+    const pieces = await readPieces(tx, row.id);
+    const state = toState(row, slots, pieces);
+    const { change } = request;
+    // A piece no longer accepted stays left out: it can only come off the map.
+    const notAccepted =
+      change.op === "leave-out" && !change.leftOut
+        ? pieces.find((x) => x.id === change.pieceId && x.status !== "accepted")
+        : undefined;
+    if (notAccepted)
+      return {
+        kind: "refused",
+        reason: `“${notAccepted.title}” is no longer accepted, so it cannot come back to the tray.`,
+        pages: [],
+        pieceIds: [notAccepted.id],
+      };
+    const result = checkedChange(state, change);
     if (!result.ok)
       return {
         kind: "refused",
@@ -296,6 +328,7 @@ export async function changeMap(
         changed: false,
       };
     await writeSlots(tx, row.id, slots, result.state.slots);
+    await writeLeftOut(tx, row.id, state, result.state);
     const version = row.mapVersion + 1;
     await tx
       .update(a)

@@ -55,7 +55,44 @@ export function applyChange(state: MapState, change: MapChange): EditResult {
       });
     case "apply-proposal":
       return applyPlacements(state, change.placements);
+    case "leave-out":
+      return setLeftOut(state, change.pieceId, change.leftOut);
   }
+}
+
+/**
+ * Marks a piece left out of this issue, or brings it back to the tray. Only a piece that is off
+ * the map can be left out: a placed one is taken off first (its pages may be locked, and taking
+ * it off is a change of its own in the history).
+ */
+export function setLeftOut(state: MapState, pieceId: number, leftOut: boolean): EditResult {
+  const piece = state.pieces.find((p) => p.id === pieceId);
+  if (!piece)
+    return {
+      ok: false,
+      code: "unknown-piece",
+      reason: `Piece ${pieceId} is not one of the accepted pieces.`,
+      pages: [],
+      pieceIds: [pieceId],
+    };
+  const pages = (piecePages(state).get(pieceId) ?? []).map((w) => w.page);
+  if (leftOut && pages.length > 0)
+    return {
+      ok: false,
+      code: "piece-already-placed",
+      reason: `${pieceName(piece, pieceId)} is on ${pagesInWords(pages)}; take it off the map before leaving it out of this issue.`,
+      pages,
+      pieceIds: [pieceId],
+    };
+  return {
+    ok: true,
+    state: {
+      ...state,
+      pieces: state.pieces.map((p) => (p.id === pieceId ? { ...p, leftOut } : p)),
+    },
+    changedPages: [],
+    droppedPieceIds: [],
+  };
 }
 
 function applyPlacements(
@@ -132,11 +169,18 @@ export function newBlockingErrors(before: MapCheck, after: MapCheck): RuleMessag
 
 /**
  * True when `after` has the same pages as `before`, each kept for the same thing, holding the
- * same page of the same piece and locked the same way: a change that leaves the map as it was.
- * A page without a slot counts as an empty, unlocked one.
+ * same page of the same piece and locked the same way, and the same pieces left out: a change
+ * that leaves the map as it was. A page without a slot counts as an empty, unlocked one.
  */
 export function leavesMapAsItWas(before: MapState, after: MapState): boolean {
   if (before.pageCount !== after.pageCount) return false;
+  const leftOut = (s: MapState) =>
+    s.pieces
+      .filter((p) => p.leftOut)
+      .map((p) => p.id)
+      .sort((x, y) => x - y)
+      .join(",");
+  if (leftOut(before) !== leftOut(after)) return false;
   const was = slotsByPage(before);
   const now = slotsByPage(after);
   const same = (x: MapSlot, y: MapSlot) =>
@@ -216,6 +260,10 @@ export function describeNoChange(state: MapState, change: MapChange): string {
         return `page ${change.page} is already ${change.locked ? "locked" : "unlocked"}.`;
       case "apply-proposal":
         return "every piece in the proposal is already where it proposes.";
+      case "leave-out":
+        return change.leftOut
+          ? `${name(change.pieceId)} is already left out of this issue.`
+          : `${name(change.pieceId)} is already in the tray.`;
       case "remove":
       case "resize":
         return "the map is as it was.";
@@ -249,6 +297,10 @@ export function describeChange(before: MapState, after: MapState, change: MapCha
       return change.delta > 0
         ? `Added 4 pages at page ${change.atPage} (now ${after.pageCount} pages).`
         : `Removed pages ${change.atPage}–${change.atPage + 3} (now ${after.pageCount} pages)${droppedNote(before, after, name)}.`;
+    case "leave-out":
+      return change.leftOut
+        ? `Left ${name(change.pieceId)} out of this issue.`
+        : `Brought ${name(change.pieceId)} back to the tray.`;
     case "apply-proposal":
       return `Accepted a proposal placing ${change.placements.length === 1 ? "1 piece" : `${change.placements.length} pieces`}.`;
   }

@@ -13,6 +13,8 @@ export const mapChangeSchema = z.discriminatedUnion("op", [
   z.object({ op: z.literal("place"), pieceId, startPage: page }),
   z.object({ op: z.literal("move"), pieceId, startPage: page }),
   z.object({ op: z.literal("remove"), pieceId }),
+  /** Marks an unplaced piece left out of this issue (true) or brings it back to the tray (false). */
+  z.object({ op: z.literal("leave-out"), pieceId, leftOut: z.boolean() }),
   z.object({ op: z.literal("reserve"), page, reservation: z.enum(SLOT_RESERVATIONS).nullable() }),
   z.object({ op: z.literal("lock"), page, locked: z.boolean() }),
   z.object({

@@ -398,6 +398,7 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
               leftOut={leftOut}
               canEdit={editable}
               onPlace={(pieceId) => setDialog({ mode: "place", pieceId })}
+              onLeaveOut={(pieceId, leftOut) => void send({ op: "leave-out", pieceId, leftOut })}
             />
           </div>
           <div className="min-w-0">

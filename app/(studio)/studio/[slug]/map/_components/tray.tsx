@@ -5,17 +5,22 @@ import type { DragData } from "./drag";
 import { TRAY_DROP_ID } from "./drag";
 import { inkList, type PieceView } from "./view-model";
 
-/** Accepted pieces not yet on the map; dropping a placed piece here takes it off the map. */
+/**
+ * Accepted pieces not yet on the map; dropping a placed piece here takes it off the map. A piece
+ * can be left out of this issue from here (it then leaves the rules) and brought back.
+ */
 export function Tray({
   pieces,
   leftOut,
   canEdit,
   onPlace,
+  onLeaveOut,
 }: {
   pieces: PieceView[];
   leftOut: PieceView[];
   canEdit: boolean;
   onPlace: (pieceId: number) => void;
+  onLeaveOut: (pieceId: number, leftOut: boolean) => void;
 }) {
   const { setNodeRef, isOver } = useDroppable({ id: TRAY_DROP_ID, disabled: !canEdit });
   return (
@@ -41,7 +46,13 @@ export function Tray({
           ) : null}
           <ul className="flex flex-col gap-2">
             {pieces.map((piece) => (
-              <TrayPiece key={piece.id} piece={piece} canEdit={canEdit} onPlace={onPlace} />
+              <TrayPiece
+                key={piece.id}
+                piece={piece}
+                canEdit={canEdit}
+                onPlace={onPlace}
+                onLeaveOut={() => onLeaveOut(piece.id, true)}
+              />
             ))}
           </ul>
         </>
@@ -50,18 +61,35 @@ export function Tray({
         <p className="text-xs text-ink-faint">Drop a placed piece here to take it off the map.</p>
       ) : null}
       {leftOut.length > 0 ? (
-        <details className="text-sm">
-          <summary className="cursor-pointer text-ink-soft">
+        <section
+          aria-labelledby="left-out-title"
+          className="flex flex-col gap-1 border-t border-ink/10 pt-2 text-sm"
+          data-testid="left-out"
+        >
+          <h3 id="left-out-title" className="font-semibold text-ink-soft">
             Left out of this issue ({leftOut.length})
-          </summary>
-          <ul className="mt-1 flex flex-col gap-1">
+          </h3>
+          <ul className="flex flex-col gap-1">
             {leftOut.map((piece) => (
-              <li key={piece.id}>
+              <li key={piece.id} data-testid={`left-out-piece-${piece.id}`}>
                 {piece.title} <span className="text-ink-faint">by {piece.contributorName}</span>
+                {canEdit && piece.status === "accepted" ? (
+                  <>
+                    {" "}
+                    <button
+                      type="button"
+                      onClick={() => onLeaveOut(piece.id, false)}
+                      className="text-xs font-semibold text-teal-dark underline"
+                      data-testid={`bring-back-${piece.id}`}
+                    >
+                      Bring “{piece.title}” back
+                    </button>
+                  </>
+                ) : null}
               </li>
             ))}
           </ul>
-        </details>
+        </section>
       ) : null}
     </section>
   );
@@ -71,10 +99,12 @@ function TrayPiece({
   piece,
   canEdit,
   onPlace,
+  onLeaveOut,
 }: {
   piece: PieceView;
   canEdit: boolean;
   onPlace: (pieceId: number) => void;
+  onLeaveOut: () => void;
 }) {
   const data: DragData = { pieceId: piece.id, from: "tray", index: 1 };
   const { attributes, listeners, setNodeRef, isDragging } = useDraggable({
@@ -121,6 +151,16 @@ function TrayPiece({
           data-testid={`tray-place-${piece.id}`}
         >
           Place “{piece.title}”…
+        </button>
+      ) : null}
+      {canEdit ? (
+        <button
+          type="button"
+          onClick={onLeaveOut}
+          className="self-start text-xs text-ink-soft underline"
+          data-testid={`tray-leave-out-${piece.id}`}
+        >
+          Leave “{piece.title}” out of this issue
         </button>
       ) : null}
     </li>

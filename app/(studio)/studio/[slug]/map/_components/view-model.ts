@@ -3,15 +3,24 @@ import type { MapPiece, MapState, RuleMessage } from "@/lib/map/types";
 import { applyChange } from "@/lib/map-edits/apply";
 import type { MapPieceCard } from "@/lib/map-edits/payload";
 
-export type PieceView = MapPiece & { contributorName: string; length: number };
+export type PieceView = MapPiece & {
+  contributorName: string;
+  length: number;
+  status: MapPieceCard["status"] | null;
+};
 
-/** Pieces by id with who made them and how many pages they take. */
+/** Pieces by id with who made them, where they are in review and how many pages they take. */
 export function piecesById(state: MapState, cards: MapPieceCard[]): Map<number, PieceView> {
-  const names = new Map(cards.map((c) => [c.id, c.contributorName]));
+  const byId = new Map(cards.map((c) => [c.id, c]));
   return new Map(
     state.pieces.map((p) => [
       p.id,
-      { ...p, contributorName: names.get(p.id) ?? "A contributor", length: pieceLength(p) },
+      {
+        ...p,
+        contributorName: byId.get(p.id)?.contributorName ?? "A contributor",
+        status: byId.get(p.id)?.status ?? null,
+        length: pieceLength(p),
+      },
     ]),
   );
 }
