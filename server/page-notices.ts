@@ -1,17 +1,50 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import type { Anthology } from "@/db/queries/anthologies";
-import { pageNoticeRecipients } from "@/db/queries/page-map";
+import { claimedDedupeKeys } from "@/db/queries/mail-log";
+import { pageNoticeRecipients, type PageNoticeRecipient } from "@/db/queries/page-map";
 import { pageNoticeMail } from "@/lib/mail/templates/page-notice";
-import type { NoticesAnswer } from "@/lib/map-edits/payload";
+import type { NoticesAnswer, NoticesPreviewAnswer } from "@/lib/map-edits/payload";
 import { personLabel } from "@/lib/people";
 import { appUrl, sendLoggedMail } from "@/server/mail";
 
 /**
- * E-mails each contributor with placed pieces the pages they are on. One message per contributor
- * per set of pages: the dedupe key carries a hash of their pages, so sending again sends nothing
- * new until their pages change.
+ * One message per contributor per set of pages: the dedupe key carries a hash of their pages, so
+ * sending again sends nothing new until their pages change.
  */
+function noticeKey(anthology: Anthology, person: PageNoticeRecipient): string {
+  const hash = createHash("sha256")
+    .update(JSON.stringify(person.pieces))
+    .digest("hex")
+    .slice(0, 16);
+  return `page-notice:${anthology.id}:${person.contributorId}:${hash}`;
+}
+
+/**
+ * Who would be told what, sending nothing: each contributor with placed pieces, named for the
+ * viewer's role (an address only for roles that may see it), their pieces and pages, and whether
+ * this notice already went out or cannot go for want of an address.
+ */
+export async function previewPageNotices(
+  anthology: Anthology,
+  { mayShowEmail }: { mayShowEmail: boolean },
+): Promise<NoticesPreviewAnswer> {
+  const recipients = await pageNoticeRecipients(anthology);
+  const sent = await claimedDedupeKeys(recipients.map((person) => noticeKey(anthology, person)));
+  const contributors = recipients.map((person) => ({
+    contributorName: personLabel(person, { mayShowEmail }),
+    pieces: person.pieces,
+    alreadySent: sent.has(noticeKey(anthology, person)),
+    hasAddress: Boolean(person.email),
+  }));
+  return {
+    contributors,
+    toSend: contributors.filter((c) => c.hasAddress && !c.alreadySent).length,
+    alreadySent: contributors.filter((c) => c.alreadySent).length,
+  };
+}
+
+/** E-mails each contributor with placed pieces the pages they are on (once per set of pages). */
 export async function sendPageNotices(anthology: Anthology): Promise<NoticesAnswer> {
   const recipients = await pageNoticeRecipients(anthology);
   const answer: NoticesAnswer = {
@@ -26,10 +59,6 @@ export async function sendPageNotices(anthology: Anthology): Promise<NoticesAnsw
       answer.failed++;
       continue;
     }
-    const hash = createHash("sha256")
-      .update(JSON.stringify(person.pieces))
-      .digest("hex")
-      .slice(0, 16);
     const mail = pageNoticeMail({
       anthologyTitle: anthology.title,
       greeting: personLabel(person, { mayShowEmail: false, unnamed: "there" }),
@@ -41,7 +70,7 @@ export async function sendPageNotices(anthology: Anthology): Promise<NoticesAnsw
         anthologyId: anthology.id,
         kind: "page-notice",
         to: person.email,
-        dedupeKey: `page-notice:${anthology.id}:${person.contributorId}:${hash}`,
+        dedupeKey: noticeKey(anthology, person),
       },
       mail,
     );

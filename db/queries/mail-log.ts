@@ -1,5 +1,5 @@
 import "server-only";
-import { eq } from "drizzle-orm";
+import { eq, inArray } from "drizzle-orm";
 import { db, schema } from "@/db";
 
 /** MariaDB's error number for a duplicate key (ER_DUP_ENTRY). */
@@ -36,6 +36,16 @@ export async function claimMailLog(row: {
     if (row.dedupeKey && isDuplicateKey(error)) return "duplicate";
     throw error;
   }
+}
+
+/** Which of these dedupe keys a log row already holds: mails sent, or being sent. */
+export async function claimedDedupeKeys(keys: string[]): Promise<Set<string>> {
+  if (keys.length === 0) return new Set();
+  const rows = await db
+    .select({ key: schema.emailLog.dedupeKey })
+    .from(schema.emailLog)
+    .where(inArray(schema.emailLog.dedupeKey, keys));
+  return new Set(rows.map((r) => r.key).filter((k): k is string => k !== null));
 }
 
 /** Records how the send went; a failure gives up the dedupe key so a retry can claim it again. */

@@ -72,6 +72,23 @@ export interface PlannedCopiesAnswer {
   copies: number;
 }
 
+/** One contributor a page notice would go to, named as the viewer may see them (never an address they may not). */
+export interface NoticePreviewEntry {
+  contributorName: string;
+  pieces: { title: string; pages: number[] }[];
+  /** This notice, for these pages, went out before: sending again skips them. */
+  alreadySent: boolean;
+  /** False when the account has no address to send to. */
+  hasAddress: boolean;
+}
+
+/** What "E-mail contributors their pages" would send, before anything is sent. */
+export interface NoticesPreviewAnswer {
+  contributors: NoticePreviewEntry[];
+  toSend: number;
+  alreadySent: number;
+}
+
 export interface NoticesAnswer {
   sent: number;
   alreadySent: number;

@@ -22,12 +22,14 @@ import type {
   MapPayload,
   MapRefusalAnswer,
   NoticesAnswer,
+  NoticesPreviewAnswer,
   PlannedCopiesAnswer,
   ProposalAnswer,
 } from "@/lib/map-edits/payload";
 import type { MapChange } from "@/lib/validations/page-map";
 import { pageKeyboardCoordinates, pageOfDropId, TRAY_DROP_ID, type DragData } from "./drag";
 import { HistoryPanel } from "./history-panel";
+import { NoticesConfirm } from "./notices-confirm";
 import { PlaceDialog } from "./place-dialog";
 import { ProposalPanel } from "./proposal-panel";
 import { ReaderView } from "./reader-view";
@@ -58,6 +60,7 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
   const [proposalBusy, setProposalBusy] = useState(false);
   const [noticesBusy, setNoticesBusy] = useState(false);
   const [notices, setNotices] = useState<{ tone: "info" | "error"; text: string } | null>(null);
+  const [noticesPreview, setNoticesPreview] = useState<NoticesPreviewAnswer | null>(null);
   // Dragging needs the client; tests and the page wait for this before they drag.
   const [hydrated, setHydrated] = useState(false);
   useEffect(() => setHydrated(true), []);
@@ -212,6 +215,29 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
     if (!saved) return;
   };
 
+  // Sending waits for the editor to see who gets which pages.
+  const previewNotices = async () => {
+    setNoticesBusy(true);
+    setNotices(null);
+    setNoticesPreview(null);
+    try {
+      setNoticesPreview(
+        await fetchJson<NoticesPreviewAnswer>(`/api/anthologies/${slug}/map/notices`, {
+          cache: "no-store",
+          failure: (status) => `Could not work out who to tell (${status}).`,
+          unreachable: "The server did not answer; try again.",
+        }),
+      );
+    } catch (error) {
+      setNotices({
+        tone: "error",
+        text: error instanceof Error ? error.message : "The server did not answer; try again.",
+      });
+    } finally {
+      setNoticesBusy(false);
+    }
+  };
+
   const sendNotices = async () => {
     setNoticesBusy(true);
     setNotices(null);
@@ -240,6 +266,7 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
       });
     } finally {
       setNoticesBusy(false);
+      setNoticesPreview(null);
     }
   };
 
@@ -343,8 +370,9 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
               <Button
                 type="button"
                 variant="quiet"
-                onClick={sendNotices}
-                busy={noticesBusy}
+                onClick={previewNotices}
+                busy={noticesBusy && noticesPreview === null}
+                disabled={noticesPreview !== null}
                 data-testid="send-notices"
               >
                 E-mail contributors their pages
@@ -375,6 +403,14 @@ export function MapWorkspace({ slug, initial }: { slug: string; initial: MapPayl
               </div>
             </Notice>
           </div>
+        ) : null}
+        {noticesPreview ? (
+          <NoticesConfirm
+            preview={noticesPreview}
+            busy={noticesBusy}
+            onSend={() => void sendNotices()}
+            onCancel={() => setNoticesPreview(null)}
+          />
         ) : null}
         {notices ? (
           <Notice tone={notices.tone} testId="notices-result">
