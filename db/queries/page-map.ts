@@ -384,6 +384,22 @@ export type { Proposal };
 
 /* ---------- Page notices ---------- */
 
+/**
+ * The pages an accepted piece sits on, as the page notice tells its contributor (the map's own
+ * piece-pages reading); none when it is not placed or no longer accepted.
+ */
+export async function placedPagesOf(anthology: Anthology, pieceId: number): Promise<number[]> {
+  return db.transaction(async (tx) => {
+    const [piece] = await tx
+      .select({ status: p.status })
+      .from(p)
+      .where(and(eq(p.id, pieceId), eq(p.anthologyId, anthology.id)));
+    if (piece?.status !== "accepted") return [];
+    const state = toState(anthology, await readSlots(tx, anthology.id, false), []);
+    return (piecePages(state).get(pieceId) ?? []).map((w) => w.page);
+  });
+}
+
 export type PageNoticeRecipient = {
   contributorId: string;
   email: string | null;

@@ -12,8 +12,10 @@ import {
   type PageView,
   type VersionView,
 } from "@/db/queries/submissions";
+import { placedPagesOf } from "@/db/queries/page-map";
 import { requireAnthologyAccess } from "@/server/auth/guard";
 import { formatDateTime } from "@/lib/dates";
+import { pagesInWords } from "@/lib/map/state";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { canMove } from "@/lib/pieces/status";
@@ -31,6 +33,14 @@ type Props = { params: Promise<{ slug: string; pieceId: string }> };
 export const metadata = { title: "My piece" };
 
 const when = (iso: string) => formatDateTime(new Date(iso));
+
+/** "pages 8–9" for pages in a row, otherwise "pages 3 and 9". */
+function mapPagesLabel(pages: number[]): string {
+  const first = pages[0];
+  const last = pages[pages.length - 1];
+  const inARow = pages.every((page, i) => page === (first ?? 0) + i);
+  return pages.length > 1 && inARow ? `pages ${first}–${last}` : pagesInWords(pages);
+}
 
 function pageName(kind: string, pageIndex: number, pageCount: number) {
   if (pageCount === 1) return "The page";
@@ -60,6 +70,7 @@ export default async function MyPiecePage({ params }: Props) {
   const spec = specOf(anthology);
   const maxMb = env().MAX_UPLOAD_MB;
   const missing = pages.filter((p) => p.currentVersionId === null).length;
+  const mapPages = await placedPagesOf(anthology, piece.id);
 
   return (
     <div className="flex flex-col gap-8" data-testid="my-piece-page" data-piece-id={piece.id}>
@@ -84,6 +95,11 @@ export default async function MyPiecePage({ params }: Props) {
           {PIECE_KIND_LABELS[piece.kind]} · {piece.pageCount} page{piece.pageCount === 1 ? "" : "s"}{" "}
           · inks: {piece.inks.join(", ") || "none named"} · credit: “{piece.creditLine}”
         </p>
+        {mapPages.length > 0 ? (
+          <p className="text-sm font-semibold" data-testid="piece-map-pages">
+            On {mapPagesLabel(mapPages)} of the map (may still change)
+          </p>
+        ) : null}
         {piece.statement ? (
           <p className="max-w-2xl whitespace-pre-line text-sm">{piece.statement}</p>
         ) : null}
