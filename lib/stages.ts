@@ -85,7 +85,44 @@ export interface StageFacts {
   call: CallDraft | null;
   /** Pieces in the book (accepted) and pieces nobody has read yet. */
   pieces: { accepted: number; awaitingReview: number };
+  /** What is still open on the page map, for the move to printing (gathered by the caller). */
+  layout?: LayoutFacts;
   now: Date;
+}
+
+/** The page map's loose ends: what a move to printing leaves behind. */
+export interface LayoutFacts {
+  /** Pages neither holding a piece nor kept for something (a cover, the credits, a blank). */
+  emptyPages: number[];
+  /** Accepted pieces neither on the map nor left out of this issue. */
+  unplacedPieces: number;
+  /** Pieces in this issue whose current files do not meet the spec (won't print, missing, needs a look). */
+  piecesNotPassing: number;
+}
+
+/** "pages 3, 4 and 7", "page 5". */
+function pagesText(pages: readonly number[]): string {
+  if (pages.length === 1) return `page ${pages[0]}`;
+  return `pages ${pages.slice(0, -1).join(", ")} and ${pages[pages.length - 1]}`;
+}
+
+/** What is still open on the map before printing: cautions, since an editor may print anyway. */
+export function layoutCautions(layout: LayoutFacts): string[] {
+  const out: string[] = [];
+  const { emptyPages, unplacedPieces, piecesNotPassing } = layout;
+  if (emptyPages.length > 0)
+    out.push(
+      `${emptyPages.length === 1 ? "1 page is" : `${emptyPages.length} pages are`} still empty on the page map (${pagesText(emptyPages)}); ${emptyPages.length === 1 ? "it" : "they"} would print blank.`,
+    );
+  if (unplacedPieces > 0)
+    out.push(
+      `${unplacedPieces === 1 ? "1 accepted piece is" : `${unplacedPieces} accepted pieces are`} not on the page map yet.`,
+    );
+  if (piecesNotPassing > 0)
+    out.push(
+      `${piecesNotPassing === 1 ? "1 piece has files" : `${piecesNotPassing} pieces have files`} that do not meet the print spec yet (won't print, missing or needing a look).`,
+    );
+  return out;
 }
 
 /** What stops a move (problems) and what the editor should know before making it (cautions). */
@@ -166,7 +203,10 @@ export function reviewStageMove(
         );
       break;
     }
-    case "printing":
+    case "printing": {
+      if (facts.layout) review.cautions.push(...layoutCautions(facts.layout));
+      break;
+    }
     case "wrapped-up":
     case "planning":
       break;

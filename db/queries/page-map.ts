@@ -5,11 +5,12 @@ import { bookletCreepMm } from "@/lib/print/creep";
 import { checkMap } from "@/lib/map/check";
 import { sheetSides, startingPageCount } from "@/lib/map/layout";
 import { countPasses } from "@/lib/map/passes";
-import { piecePages } from "@/lib/map/state";
+import { piecePages, unplacedPieces } from "@/lib/map/state";
 import type { MapPiece, MapSlot, MapState, Proposal } from "@/lib/map/types";
 import { checkedChange } from "@/lib/map-edits/apply";
 import type { MapEventView, MapPayload, MapPieceCard } from "@/lib/map-edits/payload";
 import type { SessionUser } from "@/lib/domain";
+import type { LayoutFacts } from "@/lib/stages";
 import { personLabel } from "@/lib/people";
 import type { MapChangeRequest } from "@/lib/validations/page-map";
 import type { Anthology } from "./anthologies";
@@ -381,6 +382,34 @@ export async function readMapState(
 }
 
 export type { Proposal };
+
+/* ---------- Before printing ---------- */
+
+/** Verdicts of a piece whose current files do not meet the spec (lib/pieces/verdict.ts). */
+const NOT_PASSING = ["blocker", "missing", "warning"];
+
+/**
+ * What is still open on the page map for the move to printing: empty pages, accepted pieces not
+ * placed (left-out ones aside), and pieces in this issue whose current files do not pass. Read
+ * only: a map never opened has no pages yet, so its pieces all count as not placed.
+ */
+export async function stageLayoutFacts(anthology: Anthology): Promise<LayoutFacts> {
+  return db.transaction(async (tx) => {
+    const pieces = (await readPieces(tx, anthology.id)).filter((x) => x.status === "accepted");
+    const state = toState(anthology, await readSlots(tx, anthology.id, false), pieces);
+    const verdicts = await tx
+      .select({ id: p.id, verdict: p.verdict })
+      .from(p)
+      .where(and(eq(p.anthologyId, anthology.id), eq(p.status, "accepted"), eq(p.leftOut, false)));
+    return {
+      emptyPages: state.slots
+        .filter((x) => x.pieceId === null && x.reservation === null)
+        .map((x) => x.page),
+      unplacedPieces: unplacedPieces(state).length,
+      piecesNotPassing: verdicts.filter((x) => NOT_PASSING.includes(x.verdict)).length,
+    };
+  });
+}
 
 /* ---------- Page notices ---------- */
 

@@ -2,6 +2,7 @@ import Link from "next/link";
 import { CallSpecSummaryPanel } from "@/components/call-spec-summary";
 import { Notice } from "@/components/ui/notice";
 import { countPiecesForStage, findCall, toCallRecord } from "@/db/queries/open-call";
+import { stageLayoutFacts } from "@/db/queries/page-map";
 import { requireAnthologyAccess } from "@/server/auth/guard";
 import { can } from "@/lib/auth/policy";
 import { callSpecSummary } from "@/lib/call-spec";
@@ -37,6 +38,7 @@ export default async function CallPage({ params }: { params: Promise<{ slug: str
           anthology,
           call: record,
           pieces: await countPiecesForStage(anthology.id),
+          layout: next === "printing" ? await stageLayoutFacts(anthology) : undefined,
           now,
         },
         next,

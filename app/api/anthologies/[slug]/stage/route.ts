@@ -1,4 +1,5 @@
 import { countPiecesForStage, findCall, moveStage } from "@/db/queries/open-call";
+import { stageLayoutFacts } from "@/db/queries/page-map";
 import { apiRoute, HttpError, readJson, requireApiAccess } from "@/server/api";
 import { reviewStageMove } from "@/lib/stages";
 import { formatDateTime } from "@/lib/dates";
@@ -21,6 +22,7 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ slu
       anthology,
       call: call ?? null,
       pieces: await countPiecesForStage(anthology.id),
+      layout: to === "printing" ? await stageLayoutFacts(anthology) : undefined,
       now,
     },
     to,

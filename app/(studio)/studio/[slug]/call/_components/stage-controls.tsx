@@ -117,7 +117,7 @@ export function StageControls({ slug, stage, next, problems, cautions, canAdvanc
                 undone.
               </p>
               {cautions.length > 0 ? (
-                <ul className="list-disc pl-5 text-sm text-ink-soft">
+                <ul className="list-disc pl-5 text-sm text-ink-soft" data-testid="stage-cautions">
                   {cautions.map((c) => (
                     <li key={c}>{c}</li>
                   ))}
