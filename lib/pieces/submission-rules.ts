@@ -4,7 +4,7 @@
  * layers ask these and act on the answer.
  */
 import { can } from "@/lib/auth/policy";
-import type { AnthologyStage, PieceStatus, Role } from "@/lib/domain";
+import type { AnthologyStage, PieceKind, PieceStatus, Role } from "@/lib/domain";
 import { specOf, type PrintSpec, type SpecColumns } from "@/lib/print/spec";
 import { Refusal } from "@/lib/refusal";
 import { isCallOpen, type CallWindow } from "@/lib/stages";
@@ -64,7 +64,21 @@ export function uploadsClosedReason(status: PieceStatus): string {
   return "The call has closed, so files can no longer be changed unless an editor asks you for a fix.";
 }
 
-/** The spec one page file is checked against: the anthology's, one page per file, the piece's inks. */
-export function specForPiece(anthology: SpecColumns, piece: { inks: string[] }): PrintSpec {
-  return specOf(anthology, { pagesExpected: 1, inks: piece.inks });
+/**
+ * The spec one page file is checked against: the anthology's, one page per file, the piece's inks,
+ * and for a page of a spread the side on the fold.
+ */
+export function specForPiece(
+  anthology: SpecColumns,
+  piece: { inks: string[]; kind?: PieceKind },
+  pageIndex?: number,
+): PrintSpec {
+  // A spread's left page (its first) meets the fold on its right side, the right page on its left.
+  const foldSide =
+    piece.kind === "spread" && pageIndex !== undefined
+      ? pageIndex === 1
+        ? ("right" as const)
+        : ("left" as const)
+      : undefined;
+  return specOf(anthology, { pagesExpected: 1, inks: piece.inks, foldSide });
 }

@@ -18,6 +18,12 @@ export interface PrintSpec {
   minPpi: number;
   /** Pages one file should hold (1 for a page file); absent when any count will do. */
   pagesExpected?: number;
+  /**
+   * For one page of a two-page spread, the side of the file that lies on the fold (the spine):
+   * the right side of the left page, the left side of the right page. The fold is not a trim
+   * edge, so art may run across it; the edge checks look at the other three sides only.
+   */
+  foldSide?: "left" | "right";
   printMethod: PrintMethod;
   /** Ink names in printing order, e.g. ["black", "fluorescent pink"]; empty for process colour. */
   inks: string[];
@@ -40,6 +46,8 @@ export interface SpecOptions {
   pagesExpected?: number;
   /** Narrows the inks (a piece's or a call's); an empty or missing list keeps the anthology's. */
   inks?: readonly string[] | null;
+  /** The fold side of a spread's page file (see PrintSpec.foldSide). */
+  foldSide?: "left" | "right";
 }
 
 /**
@@ -59,6 +67,7 @@ export function specOf(anthology: SpecColumns, options: SpecOptions = {}): Print
   };
   if (anthology.trimPreset) spec.trimPreset = anthology.trimPreset;
   if (options.pagesExpected !== undefined) spec.pagesExpected = options.pagesExpected;
+  if (options.foldSide) spec.foldSide = options.foldSide;
   return spec;
 }
 

@@ -142,11 +142,15 @@ export async function ingestUpload(
 
   const bytes = options.bytes ?? (await readStoredFile(request.file.ufsUrl, maxUploadBytes()));
   const maxPixels = Math.round(env().MAX_IMAGE_MEGAPIXELS * 1e6);
-  const report = await checkArtwork(bytes, specForPiece(ctx.anthology, ctx.piece), {
-    filename: request.file.name,
-    mimeType: request.file.type,
-    maxPixels,
-  });
+  const report = await checkArtwork(
+    bytes,
+    specForPiece(ctx.anthology, ctx.piece, request.pageIndex),
+    {
+      filename: request.file.name,
+      mimeType: request.file.type,
+      maxPixels,
+    },
+  );
   const thumbnail = await makeThumbnail(bytes, report, maxPixels);
   const md5 = createHash("md5").update(bytes).digest("hex");
 

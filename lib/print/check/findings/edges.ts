@@ -10,11 +10,15 @@ const REACHES = 0.02;
 /** Area in the safe band that must differ from the background to be reported: a 1.5 mm dot, mm². */
 const SAFE_BAND_CONTENT_MM2 = 2;
 
-/** Edge findings from the edge analysis of a page-sized image. */
+/**
+ * Edge findings from the edge analysis of a page-sized image. On one page of a spread the side on
+ * the fold is left out: art that crosses the fold continues on the facing page and is not cut
+ * there (common practice, no source).
+ */
 export function edgeFindings(
   spec: PrintSpec,
   v: SizeVerdict,
-  sides: ReadonlyArray<{
+  allSides: ReadonlyArray<{
     side: string;
     outerInk: number;
     insideTrimInk: number;
@@ -23,6 +27,7 @@ export function edgeFindings(
   widthPx: number,
   heightPx: number,
 ): Finding[] {
+  const sides = allSides.filter((s) => s.side !== spec.foldSide);
   const inches = specUsesInches(spec);
   const out: Finding[] = [];
   const ppi = targetPpi(spec, v.effectivePpi);
