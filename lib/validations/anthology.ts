@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { BINDINGS, COVER_STOCKS, PRINT_METHODS } from "@/lib/domain";
 import { lengthInUnit } from "@/lib/format";
+import { CURRENCIES, DEFAULT_CURRENCY } from "@/lib/money";
 import { defaultCaliperMm } from "@/lib/print/paper";
 import { findPreset } from "@/lib/print/sizes";
 import { specFieldProblems, type SpecField } from "@/lib/print/spec";
@@ -43,6 +44,10 @@ const anthologyFields = z.object({
   title: singleLineText(LENGTH.anthologyTitle).min(2, "Give the anthology a title"),
   pressName: singleLineText(LENGTH.pressName).optional().default(""),
   summary: multiLineText(TEXT_CAP.anthologySummary).optional().default(""),
+  // The currency fees and payouts are kept in (ISO 4217); chosen once, at creation.
+  currency: z
+    .enum(CURRENCIES, { error: "Choose a currency from the list" })
+    .default(DEFAULT_CURRENCY),
   trimChoice: z.enum(TRIM_CHOICES, { error: "Choose a trim size" }),
   orientation: z.enum(["portrait", "landscape"]).default("portrait"),
   unit: z.enum(["mm", "in"]).default("mm"),

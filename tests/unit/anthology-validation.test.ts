@@ -164,6 +164,23 @@ describe("anthology spec input", () => {
     );
   });
 
+  it("keeps the collective's currency, USD unless another is chosen", () => {
+    const euro = parse({ currency: "EUR" });
+    expect(euro.success && euro.data.currency).toBe("EUR");
+    const none = parse({});
+    expect(none.success && none.data.currency).toBe("USD");
+  });
+
+  it("refuses a currency outside the list, or not as ISO 4217 writes it", () => {
+    // ISO 4217: JPY has no minor unit, so it cannot be kept in cents; codes are upper case.
+    for (const currency of ["JPY", "eur", "XYZ", "€"]) {
+      const result = parse({ currency });
+      expect(result.success, currency).toBe(false);
+      if (!result.success)
+        expect(result.error.issues[0]?.message).toBe("Choose a currency from the list");
+    }
+  });
+
   it("makes slugs from titles", () => {
     expect(slugify("Low Tide Almanac #3: Mudflats!")).toBe("low-tide-almanac-3-mudflats");
     expect(slugify("Écume & Sel")).toBe("ecume-sel");

@@ -19,6 +19,7 @@ export const POST = apiRoute(async (request) => {
       title: input.title,
       pressName: input.pressName || null,
       summary: input.summary || null,
+      currency: input.currency,
       ...anthologySpecFromInput(input),
     },
     slugify(input.title),

@@ -7,9 +7,11 @@ import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass, TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { CURRENCIES, currencyLabel, DEFAULT_CURRENCY } from "@/lib/money";
 import { BINDING_LABELS, BINDINGS, PRINT_METHOD_LABELS, PRINT_METHODS } from "@/lib/domain";
 import { defaultCaliperMm, shouldScore } from "@/lib/print/paper";
 import { mmText } from "@/lib/format";
+import { inksPerPassNote } from "@/lib/print/method-notes";
 import { findPreset } from "@/lib/print/sizes";
 import { z } from "zod";
 import {
@@ -28,6 +30,7 @@ const DEFAULTS: FormValues = {
   title: "",
   pressName: "",
   summary: "",
+  currency: DEFAULT_CURRENCY,
   trimChoice: "half-letter",
   orientation: "portrait",
   unit: "in",
@@ -63,9 +66,9 @@ export function AnthologyForm() {
   });
   const { register, handleSubmit, control, setError, formState } = form;
   const inks = useFieldArray({ control, name: "inkRows" });
-  const [trimChoice, unit, paperGsm, coverStock, coverGsm] = useWatch({
+  const [trimChoice, unit, paperGsm, coverStock, coverGsm, printMethod] = useWatch({
     control,
-    name: ["trimChoice", "unit", "paperGsm", "coverStock", "coverPaperGsm"],
+    name: ["trimChoice", "unit", "paperGsm", "coverStock", "coverPaperGsm", "printMethod"],
   });
   const e = formState.errors;
   const unitLabel = unit === "in" ? "in" : "mm";
@@ -113,6 +116,24 @@ export function AnthologyForm() {
           error={e.pressName?.message}
           {...register("pressName")}
         />
+        <Field
+          id="currency"
+          label="Currency"
+          hint="For fees and payouts; it cannot change once money is recorded."
+          error={e.currency?.message}
+        >
+          <select
+            {...register("currency")}
+            {...describedBy("currency", e.currency?.message)}
+            className={`${inputClass} bg-white`}
+          >
+            {CURRENCIES.map((code) => (
+              <option key={code} value={code}>
+                {currencyLabel(code)}
+              </option>
+            ))}
+          </select>
+        </Field>
         <TextField
           id="summary"
           label="One-line summary"
@@ -301,7 +322,7 @@ export function AnthologyForm() {
         <TextField
           id="inksPerPass"
           label="Inks per pass"
-          hint="A stencil duplicator lays one ink per pass."
+          hint={inksPerPassNote(printMethod)}
           error={e.inksPerPass?.message}
           {...register("inksPerPass")}
           inputMode="numeric"
