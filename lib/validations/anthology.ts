@@ -92,8 +92,18 @@ const SPEC_FIELD_INPUTS: Partial<Record<SpecField, keyof AnthologyFields>> = {
   safeMarginMm: "safeMargin",
 };
 
-/** What the new-anthology form sends and the route handler accepts; lengths in the chosen unit. */
-export const anthologyInputSchema = anthologyFields.superRefine((v, ctx) => {
+/** The print spec's fields: all but the title, press name and summary (the spec screen edits these). */
+export const specFields = anthologyFields.omit({
+  title: true,
+  pressName: true,
+  summary: true,
+  currency: true,
+});
+type SpecFieldValues = z.output<typeof specFields>;
+export type SpecFieldsInput = z.input<typeof specFields>;
+
+/** The spec's rules across fields, shared by the new-anthology form and the spec screen. */
+export function refineSpec(v: SpecFieldValues, ctx: z.RefinementCtx): void {
   if (v.trimChoice === "custom") {
     const max = v.unit === "mm" ? 1200 : 48;
     for (const key of ["customWidth", "customHeight"] as const) {
@@ -153,7 +163,10 @@ export const anthologyInputSchema = anthologyFields.superRefine((v, ctx) => {
     const input = SPEC_FIELD_INPUTS[problem.field];
     if (input) ctx.addIssue({ code: "custom", path: [input], message: problem.message });
   }
-});
+}
+
+/** What the new-anthology form sends and the route handler accepts; lengths in the chosen unit. */
+export const anthologyInputSchema = anthologyFields.superRefine(refineSpec);
 
 export type AnthologyInput = z.input<typeof anthologyInputSchema>;
 export type AnthologyParsed = z.output<typeof anthologyInputSchema>;
@@ -193,7 +206,7 @@ function lengthsInMm(
 }
 
 /** The spec columns of an anthology, in millimetres, from validated form input. */
-export function anthologySpecFromInput(v: AnthologyParsed) {
+export function anthologySpecFromInput(v: SpecFieldValues) {
   const lengths = lengthsInMm(v);
   if (!lengths) throw new Error("a custom trim needs a width and a height above zero");
   return {

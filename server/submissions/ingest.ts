@@ -4,14 +4,14 @@ import "server-only";
  * anthology's print spec, make a thumbnail, record the version with its report, move the page's
  * current file (guarded by the page revision; a file the check could not read never displaces a
  * readable one), recompute the piece's verdict and status, and e-mail the contributor the
- * result. Also the upload route's permission check.
+ * result. Also the upload route's permission check, and the check itself for re-checks.
  */
 import { createHash } from "node:crypto";
 import { and, eq, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { Anthology } from "@/db/queries/anthologies";
 import { findCall, refreshPieceVerdict } from "@/db/queries/submissions";
-import type { PieceStatus } from "@/lib/domain";
+import type { PieceKind, PieceStatus } from "@/lib/domain";
 import { Refusal } from "@/lib/refusal";
 import { env } from "@/lib/env";
 import { specReportMail } from "@/lib/mail/templates/spec-report";
@@ -123,6 +123,29 @@ export type IngestOptions = {
   enforceWindow?: boolean;
 };
 
+/** The largest image, in pixels, the check decodes (MAX_IMAGE_MEGAPIXELS). */
+function maxImagePixels(): number {
+  return Math.round(env().MAX_IMAGE_MEGAPIXELS * 1e6);
+}
+
+/**
+ * The spec check of one page file of a piece against its anthology's spec: what every upload
+ * runs, and what the re-check after a spec change runs again on the stored bytes.
+ */
+export function checkPageFile(
+  anthology: Anthology,
+  piece: { inks: string[]; kind?: PieceKind },
+  bytes: Uint8Array,
+  file: { name: string; type: string },
+  pageIndex?: number,
+): Promise<SpecReport> {
+  return checkArtwork(bytes, specForPiece(anthology, piece, pageIndex), {
+    filename: file.name,
+    mimeType: file.type,
+    maxPixels: maxImagePixels(),
+  });
+}
+
 /** Runs the whole pipeline for one stored upload; see the module comment. Refusals throw Refusal. */
 export async function ingestUpload(
   request: IngestRequest,
@@ -141,17 +164,14 @@ export async function ingestUpload(
   const call = await findCall(ctx.anthology.id);
 
   const bytes = options.bytes ?? (await readStoredFile(request.file.ufsUrl, maxUploadBytes()));
-  const maxPixels = Math.round(env().MAX_IMAGE_MEGAPIXELS * 1e6);
-  const report = await checkArtwork(
+  const report = await checkPageFile(
+    ctx.anthology,
+    ctx.piece,
     bytes,
-    specForPiece(ctx.anthology, ctx.piece, request.pageIndex),
-    {
-      filename: request.file.name,
-      mimeType: request.file.type,
-      maxPixels,
-    },
+    request.file,
+    request.pageIndex,
   );
-  const thumbnail = await makeThumbnail(bytes, report, maxPixels);
+  const thumbnail = await makeThumbnail(bytes, report, maxImagePixels());
   const md5 = createHash("md5").update(bytes).digest("hex");
 
   const outcome = await db.transaction(async (tx) => {

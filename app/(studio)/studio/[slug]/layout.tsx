@@ -7,6 +7,7 @@ import { can, type Action } from "@/lib/auth/policy";
 /** Sections of an anthology, each shown only to roles that may open it. */
 const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "", label: "Overview", action: "anthology:view" },
+  { href: "/spec", label: "Print spec", action: "anthology:edit-spec" },
   { href: "/call", label: "Open call", action: "call:edit" },
   { href: "/submissions", label: "Submissions", action: "pieces:review" },
   { href: "/my-pieces", label: "My pieces", action: "pieces:view-own" },

@@ -3,20 +3,15 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useFieldArray, useForm, useWatch } from "react-hook-form";
+import { FormProvider, useForm } from "react-hook-form";
+import { PrintSpecFields, withInkList } from "@/components/print-spec-fields";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass, TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { CURRENCIES, currencyLabel, DEFAULT_CURRENCY } from "@/lib/money";
-import { BINDING_LABELS, BINDINGS, PRINT_METHOD_LABELS, PRINT_METHODS } from "@/lib/domain";
-import { defaultCaliperMm, shouldScore } from "@/lib/print/paper";
-import { mmText } from "@/lib/format";
-import { inksPerPassNote } from "@/lib/print/method-notes";
-import { findPreset } from "@/lib/print/sizes";
 import { z } from "zod";
 import {
   anthologyInputSchema,
-  TRIM_CHOICES,
   type AnthologyInput,
   type AnthologyParsed,
 } from "@/lib/validations/anthology";
@@ -47,9 +42,7 @@ const DEFAULTS: FormValues = {
   minPpi: 300,
 };
 
-const selectClass = `${inputClass} bg-white`;
-
-/** The new-anthology form: title, trim (preset or custom), bleed, pages, paper, print method and inks. */
+/** The new-anthology form: title, press and summary, then the print spec's fields (shared with the spec screen). */
 export function AnthologyForm() {
   const router = useRouter();
   const [serverError, setServerError] = useState<string>();
@@ -57,26 +50,10 @@ export function AnthologyForm() {
   const form = useForm<FormValues, unknown, AnthologyParsed>({
     defaultValues: DEFAULTS,
     // The form edits inks as rows; the shared schema sees them as a list of names.
-    resolver: zodResolver(
-      z.preprocess((v) => {
-        const { inkRows, ...rest } = v as FormValues;
-        return { ...rest, inks: inkRows.map((row) => row.name) };
-      }, anthologyInputSchema),
-    ),
+    resolver: zodResolver(z.preprocess((v) => withInkList(v as FormValues), anthologyInputSchema)),
   });
-  const { register, handleSubmit, control, setError, formState } = form;
-  const inks = useFieldArray({ control, name: "inkRows" });
-  const [trimChoice, unit, paperGsm, coverStock, coverGsm, printMethod] = useWatch({
-    control,
-    name: ["trimChoice", "unit", "paperGsm", "coverStock", "coverPaperGsm", "printMethod"],
-  });
+  const { register, handleSubmit, setError, formState } = form;
   const e = formState.errors;
-  const unitLabel = unit === "in" ? "in" : "mm";
-  const preset = trimChoice === "custom" ? undefined : findPreset(trimChoice);
-  const gsmNumber = Number(paperGsm);
-  const coverNumber = Number(coverGsm);
-
-  const inkError = (e as { inks?: { message?: string } }).inks?.message;
 
   const onSubmit = handleSubmit(async (values) => {
     setSaving(true);
@@ -100,281 +77,64 @@ export function AnthologyForm() {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-8" aria-label="New anthology">
-      {serverError ? (
-        <Notice tone="error" testId="form-error">
-          {serverError}
-        </Notice>
-      ) : null}
-      <fieldset className="grid gap-4 sm:grid-cols-2">
-        <legend className="mb-2 text-xl font-semibold">The anthology</legend>
-        <TextField id="title" label="Title" error={e.title?.message} {...register("title")} />
-        <TextField
-          id="pressName"
-          label="Press or collective"
-          hint="Optional."
-          error={e.pressName?.message}
-          {...register("pressName")}
-        />
-        <Field
-          id="currency"
-          label="Currency"
-          hint="For fees and payouts; it cannot change once money is recorded."
-          error={e.currency?.message}
-        >
-          <select
-            {...register("currency")}
-            {...describedBy("currency", e.currency?.message)}
-            className={`${inputClass} bg-white`}
-          >
-            {CURRENCIES.map((code) => (
-              <option key={code} value={code}>
-                {currencyLabel(code)}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <TextField
-          id="summary"
-          label="One-line summary"
-          hint="Optional; shown on the open call."
-          fieldClassName="sm:col-span-2"
-          error={e.summary?.message}
-          {...register("summary")}
-        />
-      </fieldset>
-
-      <fieldset className="grid gap-4 sm:grid-cols-3">
-        <legend className="mb-2 text-xl font-semibold">Trim, bleed and safe area</legend>
-        <Field
-          id="trimChoice"
-          label="Trim size"
-          hint={
-            preset
-              ? `${mmText(preset.widthMm)} x ${mmText(preset.heightMm)} mm`
-              : "Enter the size below."
-          }
-          error={e.trimChoice?.message}
-        >
-          <select
-            {...register("trimChoice")}
-            {...describedBy("trimChoice", e.trimChoice?.message)}
-            className={selectClass}
-          >
-            {TRIM_CHOICES.map((id) => (
-              <option key={id} value={id}>
-                {id === "custom" ? "Custom size" : (findPreset(id)?.label ?? id)}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <Field id="orientation" label="Orientation">
-          <select {...register("orientation")} id="orientation" className={selectClass}>
-            <option value="portrait">Portrait (taller than wide)</option>
-            <option value="landscape">Landscape (wider than tall)</option>
-          </select>
-        </Field>
-        <Field
-          id="unit"
-          label="Unit for lengths"
-          hint="Used for custom size, bleed and safe margin."
-        >
-          <select {...register("unit")} {...describedBy("unit")} className={selectClass}>
-            <option value="in">inches</option>
-            <option value="mm">millimetres</option>
-          </select>
-        </Field>
-        {trimChoice === "custom" ? (
-          <>
-            <TextField
-              id="customWidth"
-              label={`Width (${unitLabel})`}
-              error={e.customWidth?.message}
-              {...register("customWidth")}
-              inputMode="decimal"
-            />
-            <TextField
-              id="customHeight"
-              label={`Height (${unitLabel})`}
-              error={e.customHeight?.message}
-              {...register("customHeight")}
-              inputMode="decimal"
-            />
-          </>
+    <FormProvider {...form}>
+      <form
+        onSubmit={onSubmit}
+        noValidate
+        className="flex flex-col gap-8"
+        aria-label="New anthology"
+      >
+        {serverError ? (
+          <Notice tone="error" testId="form-error">
+            {serverError}
+          </Notice>
         ) : null}
-        <TextField
-          id="bleed"
-          label={`Bleed (${unitLabel})`}
-          hint={unit === "in" ? "Usually 0.125 in." : "Usually 3 mm."}
-          error={e.bleed?.message}
-          {...register("bleed")}
-          inputMode="decimal"
-        />
-        <TextField
-          id="safeMargin"
-          label={`Safe margin (${unitLabel})`}
-          hint="Keep text this far inside the trim."
-          error={e.safeMargin?.message}
-          {...register("safeMargin")}
-          inputMode="decimal"
-        />
-        <TextField
-          id="minPpi"
-          label="Minimum resolution (ppi)"
-          hint="300 ppi for photos and tones."
-          error={e.minPpi?.message}
-          {...register("minPpi")}
-          inputMode="numeric"
-        />
-      </fieldset>
-
-      <fieldset className="grid gap-4 sm:grid-cols-3">
-        <legend className="mb-2 text-xl font-semibold">Binding and paper</legend>
-        <Field id="binding" label="Binding">
-          <select {...register("binding")} {...describedBy("binding")} className={selectClass}>
-            {BINDINGS.map((b) => (
-              <option key={b} value={b}>
-                {BINDING_LABELS[b]}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <TextField
-          id="pageCountTarget"
-          label="Pages (with covers)"
-          hint="A multiple of 4 for saddle stitch."
-          error={e.pageCountTarget?.message}
-          {...register("pageCountTarget")}
-          inputMode="numeric"
-        />
-        <TextField
-          id="maxPages"
-          label="Most pages the stapler allows"
-          error={e.maxPages?.message}
-          {...register("maxPages")}
-          inputMode="numeric"
-        />
-        <TextField
-          id="paperGsm"
-          label="Inside paper (gsm)"
-          error={e.paperGsm?.message}
-          {...register("paperGsm")}
-          inputMode="numeric"
-        />
-        <Field
-          id="paperCaliperMm"
-          label="Paper caliper (mm)"
-          hint={
-            gsmNumber > 0
-              ? `Leave empty to estimate ${defaultCaliperMm(gsmNumber).toFixed(3)} mm from the weight.`
-              : "Leave empty to estimate from the weight."
-          }
-          error={e.paperCaliperMm?.message}
-        >
-          <input
-            {...register("paperCaliperMm")}
-            {...describedBy("paperCaliperMm", e.paperCaliperMm?.message)}
-            inputMode="decimal"
-            className={inputClass}
-          />
-        </Field>
-        <Field id="coverStock" label="Cover">
-          <select
-            {...register("coverStock")}
-            {...describedBy("coverStock")}
-            className={selectClass}
-          >
-            <option value="self">Same paper as the inside (self-cover)</option>
-            <option value="separate">Separate, heavier cover stock</option>
-          </select>
-        </Field>
-        {coverStock === "separate" ? (
+        <fieldset className="grid gap-4 sm:grid-cols-2">
+          <legend className="mb-2 text-xl font-semibold">The anthology</legend>
+          <TextField id="title" label="Title" error={e.title?.message} {...register("title")} />
           <TextField
-            id="coverPaperGsm"
-            label="Cover stock (gsm)"
-            error={e.coverPaperGsm?.message}
-            {...register("coverPaperGsm")}
-            inputMode="numeric"
+            id="pressName"
+            label="Press or collective"
+            hint="Optional."
+            error={e.pressName?.message}
+            {...register("pressName")}
           />
-        ) : null}
-        {(coverStock === "separate" && shouldScore(coverNumber)) || shouldScore(gsmNumber) ? (
-          <p className="text-sm text-ink-soft sm:col-span-3" data-testid="score-hint">
-            Stock this heavy should be scored before folding so the fold does not crack.
-          </p>
-        ) : null}
-      </fieldset>
-
-      <fieldset className="grid gap-4 sm:grid-cols-3">
-        <legend className="mb-2 text-xl font-semibold">Printing</legend>
-        <Field id="printMethod" label="Print method">
-          <select
-            {...register("printMethod")}
-            {...describedBy("printMethod")}
-            className={selectClass}
+          <Field
+            id="currency"
+            label="Currency"
+            hint="For fees and payouts; it cannot change once money is recorded."
+            error={e.currency?.message}
           >
-            {PRINT_METHODS.map((m) => (
-              <option key={m} value={m}>
-                {PRINT_METHOD_LABELS[m]}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <TextField
-          id="inksPerPass"
-          label="Inks per pass"
-          hint={inksPerPassNote(printMethod)}
-          error={e.inksPerPass?.message}
-          {...register("inksPerPass")}
-          inputMode="numeric"
-        />
-        <div className="flex flex-col gap-2 sm:col-span-3">
-          <p className="text-sm font-semibold" id="inks-label">
-            Inks
-          </p>
-          <ul className="flex flex-wrap gap-2" aria-labelledby="inks-label">
-            {inks.fields.map((field, index) => (
-              <li key={field.id} className="flex items-center gap-1">
-                <input
-                  {...register(`inkRows.${index}.name` as const)}
-                  aria-label={`Ink ${index + 1}`}
-                  className={`${inputClass} w-40`}
-                />
-                {inks.fields.length > 1 ? (
-                  <button
-                    type="button"
-                    onClick={() => inks.remove(index)}
-                    className="rounded px-2 text-sm text-ink-soft hover:bg-paper-deep"
-                    aria-label={`Remove ink ${index + 1}`}
-                  >
-                    ✕
-                  </button>
-                ) : null}
-              </li>
-            ))}
-            <li>
-              <Button
-                type="button"
-                variant="quiet"
-                onClick={() => inks.append({ name: "" })}
-                disabled={inks.fields.length >= 8}
-              >
-                Add an ink
-              </Button>
-            </li>
-          </ul>
-          {inkError ? (
-            <p className="text-xs font-semibold text-persimmon-dark" data-testid="error-inks">
-              {inkError}
-            </p>
-          ) : null}
-        </div>
-      </fieldset>
+            <select
+              {...register("currency")}
+              {...describedBy("currency", e.currency?.message)}
+              className={`${inputClass} bg-white`}
+            >
+              {CURRENCIES.map((code) => (
+                <option key={code} value={code}>
+                  {currencyLabel(code)}
+                </option>
+              ))}
+            </select>
+          </Field>
+          <TextField
+            id="summary"
+            label="One-line summary"
+            hint="Optional; shown on the open call."
+            fieldClassName="sm:col-span-2"
+            error={e.summary?.message}
+            {...register("summary")}
+          />
+        </fieldset>
 
-      <div>
-        <Button type="submit" variant="accent" busy={saving}>
-          {saving ? "Saving…" : "Create anthology"}
-        </Button>
-      </div>
-    </form>
+        <PrintSpecFields />
+
+        <div>
+          <Button type="submit" variant="accent" busy={saving}>
+            {saving ? "Saving…" : "Create anthology"}
+          </Button>
+        </div>
+      </form>
+    </FormProvider>
   );
 }
