@@ -107,6 +107,8 @@ async function readMap(tx: Tx, row: Anthology): Promise<MapState | null> {
 
 /** A current file with what the re-check needs to fetch and check it again. */
 export type StoredCurrentFile = CurrentFile & {
+  /** A spread's pages are checked with their fold side (lib/pieces/submission-rules.ts specForPiece). */
+  pieceKind: (typeof schema.pieces.$inferSelect)["kind"];
   storageKey: string;
   mimeType: string;
   verdict: string;
@@ -127,6 +129,7 @@ export async function listCurrentFiles(
       mimeType: fv.mimeType,
       storageKey: fv.storageKey,
       pieceInks: p.inks,
+      pieceKind: p.kind,
       report: fv.report,
       verdict: fv.verdict,
     })

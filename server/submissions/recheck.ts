@@ -30,10 +30,13 @@ export async function recheckCurrentFiles(anthologyId: number): Promise<RecheckS
       summary.notChecked++;
       continue;
     }
-    const report = await checkPageFile(anthology, { inks: file.pieceInks }, bytes, {
-      name: file.fileName,
-      type: file.mimeType,
-    });
+    const report = await checkPageFile(
+      anthology,
+      { inks: file.pieceInks, kind: file.pieceKind },
+      bytes,
+      { name: file.fileName, type: file.mimeType },
+      file.pageIndex,
+    );
     await storeReport(file.versionId, report);
     summary.checked++;
     touched.push(file.pieceId);
