@@ -1,13 +1,12 @@
 /**
  * `npm run bench`: prints JSON timings for the print engine. The header-only and full spec
- * checks run on a 100-megapixel JPEG beside sharp's bare metadata() on the same bytes (the
- * baseline, same run); then imposition math for 96 pages, cost tables for 20 quantities and the
- * page-map proposal (200 pieces into 96 pages).
+ * checks run on 100-megapixel files (JPEG, PNG, 16-bit PNG, CMYK TIFF; see ./images.ts) beside
+ * baselines timed in the same run on the same bytes: sharp's metadata(), a bare sharp decode and
+ * ImageMagick's `identify -verbose`. Then imposition math for 96 pages, cost tables for 20
+ * quantities and the page-map proposal (200 pieces into 96 pages).
  * No thresholds: the figures are for reading, not for passing.
  */
-import { performance } from "node:perf_hooks";
 import sharp from "sharp";
-import { checkArtwork, checkArtworkHeader } from "../../lib/print/check";
 import { costTable, compareWithShop, breakEven, type HomeRunInputs } from "../../lib/print/costs";
 import { pageShifts } from "../../lib/print/creep";
 import {
@@ -18,74 +17,8 @@ import {
 } from "../../lib/print/imposition";
 import { planInkPasses } from "../../lib/print/passes";
 import type { PrintSpec } from "../../lib/print/spec";
+import { benchImages, time } from "./images";
 import { benchMap } from "./map";
-
-interface Timing {
-  runs: number;
-  medianMs: number;
-  minMs: number;
-  maxMs: number;
-}
-
-async function time(runs: number, fn: () => Promise<unknown> | unknown): Promise<Timing> {
-  const samples: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const start = performance.now();
-    await fn();
-    samples.push(performance.now() - start);
-  }
-  samples.sort((a, b) => a - b);
-  const round = (v: number) => Math.round(v * 1000) / 1000;
-  return {
-    runs,
-    medianMs: round(samples[Math.floor(samples.length / 2)] ?? 0),
-    minMs: round(samples[0] ?? 0),
-    maxMs: round(samples[samples.length - 1] ?? 0),
-  };
-}
-
-async function bigImage(format: "jpeg" | "png"): Promise<Buffer> {
-  const side = 10_000; // 10000 x 10000 = 100 megapixels
-  const mark = Buffer.from(
-    `<svg xmlns="http://www.w3.org/2000/svg" width="4000" height="4000"><circle cx="2000" cy="2000" r="1800" fill="#222"/></svg>`,
-  );
-  const image = sharp({
-    create: { width: side, height: side, channels: 3, background: "#8a8a8a" },
-    limitInputPixels: false,
-  }).composite([{ input: mark, top: 3000, left: 3000 }]);
-  return format === "jpeg"
-    ? image.jpeg({ quality: 85 }).toBuffer()
-    : image.png({ compressionLevel: 1 }).toBuffer();
-}
-
-async function imageBench(format: "jpeg" | "png", spec: PrintSpec) {
-  const bytes = await bigImage(format);
-  const options = { maxPixels: 150_000_000 };
-  const header = await checkArtworkHeader(bytes, spec, options);
-  const full = await checkArtwork(bytes, spec, options);
-  const timings = {
-    sharpMetadataBaseline: await time(7, () =>
-      sharp(bytes, { limitInputPixels: false }).metadata(),
-    ),
-    headerCheck: await time(7, () => checkArtworkHeader(bytes, spec, options)),
-    fullCheck: await time(3, () => checkArtwork(bytes, spec, options)),
-  };
-  const ratio = (t: Timing) =>
-    Math.round((t.medianMs / timings.sharpMetadataBaseline.medianMs) * 10) / 10;
-  return {
-    format: full.format,
-    widthPx: full.measured.widthPx,
-    heightPx: full.measured.heightPx,
-    megapixels: full.measured.megapixels,
-    bytes: bytes.length,
-    headerVerdict: header.verdict,
-    fullVerdict: full.verdict,
-    fullFindings: full.findings.map((f) => f.code),
-    timings,
-    headerCheckOverBaseline: ratio(timings.headerCheck),
-    fullCheckOverBaseline: ratio(timings.fullCheck),
-  };
-}
 
 async function main(): Promise<void> {
   // 200 x 200 mm trim + 3 mm bleed: 10000 px across 206 mm is about 1233 ppi.
@@ -98,7 +31,7 @@ async function main(): Promise<void> {
     printMethod: "laser-colour",
     inks: [],
   };
-  const images = [await imageBench("jpeg", spec), await imageBench("png", spec)];
+  const images = await benchImages(spec);
 
   const imposition = () => {
     const plan = planSaddleStitch({ contentPages: 93, cover: "separate" });
@@ -155,7 +88,7 @@ async function main(): Promise<void> {
     node: process.version,
     sharp: sharp.versions.sharp,
     libvips: sharp.versions.vips,
-    images,
+    ...images,
     imposition96Pages: {
       pages: 96,
       sheets: 24,

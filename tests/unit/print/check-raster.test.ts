@@ -307,3 +307,37 @@ describe("transparency in words", () => {
     });
   });
 });
+
+describe("large files are analysed from a reduced decode", () => {
+  // Half letter with 1/8 in bleed at 400 ppi: 5.75 x 8.75 in = 2300 x 3500 px (derived). The
+  // analysis reads a copy 1200 px on the long side: 2300 x 1200 / 3500 = 788.6, so 789 px.
+  const at400 = (over: Partial<PrintSpec> = {}) => halfLetter({ minPpi: 400, ...over });
+
+  it("a framed page keeps its white bleed band when reduced: the art stops at the trim", async () => {
+    // 1/8 in at 400 ppi is 50 px; a 52 px white frame leaves the bleed blank on every side
+    const big = greyPng(2300, 3500, framed(2300, 3500, 52), Math.round(400 / 0.0254));
+    const report = await checkArtwork(big, at400());
+    expect(report.measured.edges?.analysedWidthPx).toBe(789);
+    expect(report.measured.edges?.analysedHeightPx).toBe(1200);
+    expect(find(report, "art-stops-at-trim")?.where).toBe("top, right, bottom and left edges");
+  });
+
+  it("a CMYK TIFF is reduced in CMYK, then read as colour: colour findings as for the full file", async () => {
+    // TIFF 6.0 Section 16 (CMYK images, PhotometricInterpretation 5 = separated); sharp writes it
+    const cmyk = await sharp({
+      create: { width: 2300, height: 3500, channels: 3, background: "#cc3344" },
+    })
+      .toColourspace("cmyk")
+      .tiff({ compression: "lzw" })
+      .toBuffer();
+    const inkjet = await checkArtwork(cmyk, at400({ printMethod: "inkjet", inks: [] }));
+    expect(inkjet.format).toBe("tiff");
+    expect(inkjet.measured.colourSpace).toBe("cmyk");
+    expect(codes(inkjet)).toContain("cmyk-for-desktop-printer");
+    expect(inkjet.measured.edges?.sides.every((side) => side.outerInk === 1)).toBe(true);
+    // Still colourful after the reduction: a one-ink duplicator job is told to convert to grey
+    const duplicator = await checkArtwork(cmyk, at400());
+    expect(find(duplicator, "colour-for-duplicator")?.severity).toBe("warning");
+    expect(codes(duplicator)).not.toContain("grey-in-colour-file");
+  });
+});
