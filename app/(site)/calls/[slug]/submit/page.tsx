@@ -104,11 +104,15 @@ export default async function SubmitPage({ params }: Props) {
               <dt className="text-ink-soft">Inks</dt>
               <dd>{call.allowedInks.join(", ")}</dd>
             </dl>
-            <p>
-              <Link href={myPieces} className={linkButtonClass("quiet")}>
-                Your pieces
-              </Link>
-            </p>
+            {/* Only members have a pieces page: before the first piece it would answer 403, and a
+                prefetch of that refusal would be reused by the move there after saving. */}
+            {role ? (
+              <p>
+                <Link href={myPieces} className={linkButtonClass("quiet")}>
+                  Your pieces
+                </Link>
+              </p>
+            ) : null}
           </aside>
         </div>
       )}
