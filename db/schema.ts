@@ -28,6 +28,8 @@ import {
   PIECE_KINDS,
   PIECE_STATUSES,
   PRINT_METHODS,
+  PRINT_OUTPUT_KINDS,
+  PRINT_OUTPUT_STATES,
   ROLES,
   SLOT_RESERVATIONS,
   type AnthologyStage,
@@ -37,6 +39,8 @@ import {
   type PieceKind,
   type PieceStatus,
   type PrintMethod,
+  type PrintOutputKind,
+  type PrintOutputState,
   type Role,
   type SlotReservation,
 } from "../lib/domain";
@@ -252,6 +256,8 @@ export const pieces = mysqlTable(
     inks: json("inks").$type<string[]>().notNull(),
     creditLine: varchar("credit_line", { length: LENGTH.creditLine }).notNull(),
     creditApprovedAt: datetime("credit_approved_at", { mode: "date" }),
+    /** When the contributor was last asked by e-mail to approve the credit line; cleared on approval. */
+    creditRequestedAt: datetime("credit_requested_at", { mode: "date", fsp: 3 }),
     statement: text("statement"),
     status: varchar("status", { length: 24, enum: PIECE_STATUSES })
       .$type<PieceStatus>()
@@ -300,6 +306,11 @@ export const fileVersions = mysqlTable(
     mimeType: varchar("mime_type", { length: 100 }).notNull(),
     sizeBytes: bigint("size_bytes", { mode: "number", unsigned: true }).notNull(),
     md5: char("md5", { length: 32 }),
+    /**
+     * For a stencil duplicator's separations: the ink this greyscale master is for (one drum pass).
+     * Null for a composite page file.
+     */
+    ink: varchar("ink", { length: 40 }),
     /** The print engine's report: measured values and findings. */
     report: json("report").notNull(),
     verdict: varchar("verdict", { length: 16 }).notNull(),
@@ -310,6 +321,24 @@ export const fileVersions = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("file_version_number").on(t.piecePageId, t.versionNumber)],
+);
+
+/**
+ * One ink's separation of a piece page, for duplicator anthologies where a piece uses two or more
+ * inks: the current master for that ink and the revision guard, as piece_page has for composites.
+ */
+export const pageSeparations = mysqlTable(
+  "page_separation",
+  {
+    id: id(),
+    piecePageId: ref("piece_page_id")
+      .notNull()
+      .references(() => piecePages.id, { onDelete: "cascade" }),
+    ink: varchar("ink", { length: 40 }).notNull(),
+    currentVersionId: ref("current_version_id"),
+    revision: int("revision").notNull().default(0),
+  },
+  (t) => [uniqueIndex("page_separation_ink").on(t.piecePageId, t.ink)],
 );
 
 export const pieceEvents = mysqlTable(
@@ -379,6 +408,53 @@ export const mapEvents = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [index("map_event_anthology").on(t.anthologyId)],
+);
+
+/* ---------- Print files ---------- */
+
+/**
+ * One produced file: an imposed print PDF (composite, or one ink's masters for a duplicator), a
+ * reader proof or a credits page. Made by the print worker off the request; a failed run keeps its
+ * message and leaves the last good output of that kind untouched.
+ */
+export const printOutputs = mysqlTable(
+  "print_output",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    kind: varchar("kind", { length: 16, enum: PRINT_OUTPUT_KINDS })
+      .$type<PrintOutputKind>()
+      .notNull(),
+    /** The ink of a duplicator master; null for composites, proofs and credits. */
+    ink: varchar("ink", { length: 40 }),
+    state: varchar("state", { length: 16, enum: PRINT_OUTPUT_STATES })
+      .$type<PrintOutputState>()
+      .notNull()
+      .default("queued"),
+    /** The BullMQ job that makes it. */
+    jobId: varchar("job_id", { length: 64 }),
+    /** The map version the output was made from; older than the anthology's means stale. */
+    mapVersion: int("map_version").notNull(),
+    /** Press sheet, portrait, in millimetres (null for a proof or credits page). */
+    sheetWidthMm: double("sheet_width_mm"),
+    sheetHeightMm: double("sheet_height_mm"),
+    sheetName: varchar("sheet_name", { length: 40 }),
+    pagesDone: int("pages_done").notNull().default(0),
+    pagesTotal: int("pages_total").notNull().default(0),
+    storageKey: varchar("storage_key", { length: 128 }),
+    fileName: varchar("file_name", { length: 255 }),
+    sizeBytes: bigint("size_bytes", { mode: "number", unsigned: true }),
+    pageCount: int("page_count"),
+    /** Set when the map or a file it used changed after it was made. */
+    staleAt: datetime("stale_at", { mode: "date", fsp: 3 }),
+    error: text("error"),
+    requestedBy: userRef("requested_by").notNull(),
+    createdAt: createdAt(),
+    finishedAt: datetime("finished_at", { mode: "date", fsp: 3 }),
+  },
+  (t) => [index("print_output_anthology").on(t.anthologyId, t.kind)],
 );
 
 /* ---------- Mail ---------- */

@@ -89,5 +89,11 @@ export const SLOT_RESERVATIONS = [
 ] as const;
 export type SlotReservation = (typeof SLOT_RESERVATIONS)[number];
 
+/** What the print worker produces: imposed composite, one ink's masters, reader proof, credits page. */
+export const PRINT_OUTPUT_KINDS = ["print", "master", "proof", "credits"] as const;
+export type PrintOutputKind = (typeof PRINT_OUTPUT_KINDS)[number];
+export const PRINT_OUTPUT_STATES = ["queued", "running", "done", "failed"] as const;
+export type PrintOutputState = (typeof PRINT_OUTPUT_STATES)[number];
+
 /** The signed-in person as the app sees them (from the session). */
 export type SessionUser = { id: string; name: string | null; email: string | null };
