@@ -17,7 +17,7 @@ import { appEnv, authSecret } from "./launch/app-env.mjs";
 import { Fatal, note, RESULTS, secs, step } from "./launch/common.mjs";
 import { prepareDatabase, runTsScript } from "./launch/database.mjs";
 import { startFakes } from "./launch/fakes.mjs";
-import { installDependencies } from "./launch/install.mjs";
+import { installDependencies, installPdfTools } from "./launch/install.mjs";
 import { checkPorts, PORTS } from "./launch/ports.mjs";
 import { handleSignals, shutdown, shuttingDown, signalled } from "./launch/shutdown.mjs";
 import { report, runPlaywright, runVitest, splitFilters } from "./launch/tests.mjs";
@@ -36,6 +36,7 @@ async function main() {
   const ports = PORTS[mode];
 
   await installDependencies(mode, filters?.runPlaywright ?? false);
+  installPdfTools(mode);
 
   step("checking ports");
   await checkPorts(ports);

@@ -1,4 +1,5 @@
-// node_modules from the lock file, and Debian's Chromium for Playwright.
+// node_modules from the lock file, Debian's Chromium for Playwright and poppler's pdfinfo,
+// pdftotext and pdftoppm, the independent PDF reader the print-file tests check against.
 
 import fs from "node:fs";
 import path from "node:path";
@@ -48,4 +49,17 @@ export async function installDependencies(mode, wantPlaywright) {
     step("installing Debian's chromium for Playwright");
     mariadb.aptInstall(["chromium"]);
   }
+}
+
+/** poppler-utils for the print-file tests (root installs it; others are told how). */
+export function installPdfTools(mode) {
+  if (mode !== "test" || fs.existsSync("/usr/bin/pdfinfo")) return;
+  if (!isRoot) {
+    throw new Fatal(
+      "The print-file tests read PDFs back with poppler's pdfinfo and pdftoppm. Install them as root:\n" +
+        "  apt-get update && DEBIAN_FRONTEND=noninteractive apt-get install -y --no-install-recommends poppler-utils",
+    );
+  }
+  step("installing Debian's poppler-utils for the print-file tests");
+  mariadb.aptInstall(["poppler-utils"]);
 }
