@@ -121,6 +121,8 @@ test("the lead places pieces by drag and by keyboard, sees the rules, and accept
   await expect(dialog).toHaveCount(0);
   await expect(page.getByTestId("slot-6")).toHaveAttribute("data-piece", String(ids.kelp));
   await expect(screen).toHaveAttribute("data-version", "2");
+  // Focus lands on the page the piece went to, not on the page body (WCAG 2.2 SC 2.4.3).
+  await expect(page.getByTestId("slot-select-6")).toBeFocused();
 
   // A spread dropped on a right-hand page is refused with the rule in plain words, and nothing is saved.
   await dragTo(page, page.getByTestId(`tray-piece-${ids.tide}`), page.getByTestId("slot-9"));

@@ -135,3 +135,44 @@ test("a finisher cannot open the submissions", async ({ page }) => {
   expect(response?.status()).toBe(403);
   await expect(page.getByTestId("forbidden")).toBeVisible();
 });
+
+test("while a new sort is fetched the stale rows are dimmed and the table says it is updating", async ({
+  page,
+}) => {
+  const lead = demoAccount("odile");
+  await signInWithPassword(page, lead.email, lead.password);
+  await page.goto(`/studio/low-tide-almanac/submissions?q=${tag}`);
+  const rows = page.getByTestId("submission-row");
+  await expect(rows).toHaveCount(3);
+  const status = page.getByTestId("submissions-refreshing");
+  await expect(status).toHaveText("");
+
+  // Hold the next page back until the test has looked at the table.
+  let release!: () => void;
+  const held = new Promise<void>((resolve) => (release = resolve));
+  await page.route(
+    /\/api\/anthologies\/low-tide-almanac\/submissions\?.*sort=title/,
+    async (route) => {
+      await held;
+      await route.continue();
+    },
+  );
+
+  await page.getByTestId("sort-title").click();
+  await expect(status).toHaveText("Updating the list…");
+  await expect(page.getByTestId("submissions-table")).toHaveAttribute("aria-busy", "true");
+  await expect(page.locator("[data-testid=submissions-table] tbody")).toHaveAttribute(
+    "data-stale",
+    "true",
+  );
+  // The previous rows stay readable meanwhile.
+  await expect(rows).toHaveCount(3);
+
+  release();
+  await expect(status).toHaveText("");
+  await expect(page.locator("[data-testid=submissions-table] tbody")).not.toHaveAttribute(
+    "data-stale",
+    "true",
+  );
+  await expect(rows.first()).toContainText(titles.a);
+});

@@ -63,7 +63,8 @@ export function SlotCard({
         id={slotButtonId(slot.page)}
         // Starts with the visible "p. N" so speech input can say what it sees (WCAG 2.2 SC 2.5.3).
         aria-label={`p. ${slot.page}: ${what}${slot.locked ? ", locked" : ""}${messages.length ? `, ${messages.length} rule ${messages.length === 1 ? "message" : "messages"}` : ""}`}
-        className="flex items-center justify-between text-left font-mono text-[11px] text-ink-soft hover:text-ink"
+        // At least 24 px tall: the smallest target WCAG 2.2 SC 2.5.8 allows.
+        className="flex min-h-6 items-center justify-between text-left font-mono text-[11px] text-ink-soft hover:text-ink"
         data-testid={`slot-select-${slot.page}`}
       >
         <span>p. {slot.page}</span>
@@ -138,7 +139,6 @@ function PlacedChip({
         listeners?.onKeyDown?.(event);
       }}
       aria-roledescription="placed piece"
-      aria-label={`${piece.title} on page ${slot.page}. Press Enter for its page controls${canEdit ? ", or Space to drag it" : ""}.`}
       data-testid={`placed-${piece.id}-${slot.page}`}
       className={`rounded bg-teal-light/70 px-1.5 py-1 ${canEdit ? "cursor-grab touch-none" : ""} ${isDragging ? "opacity-40" : ""}`}
     >
@@ -147,6 +147,11 @@ function PlacedChip({
         {piece.length > 1 ? `${slot.piecePageIndex}/${piece.length} · ` : ""}
         {piece.contributorName}
       </p>
+      {/* The name comes from the visible text (WCAG 2.2 SC 2.5.3); the page and keys are added. */}
+      <span className="sr-only">
+        , on page {slot.page}. Press Enter for its page controls
+        {canEdit ? ", or Space to drag it" : ""}.
+      </span>
     </div>
   );
 }

@@ -75,7 +75,12 @@ export function SubmissionsGrid({
           </tr>
         ))}
       </thead>
-      <tbody>
+      {/* Stale rows are dimmed while the next page is fetched, so a new sort or filter is not
+          mistaken for its result; the status line above the table says the same in words. */}
+      <tbody
+        className={busy && !loading ? "opacity-50 transition-opacity" : undefined}
+        data-stale={busy && !loading ? "true" : undefined}
+      >
         {loading ? (
           <SkeletonRows columns={table.getVisibleLeafColumns().length} />
         ) : (

@@ -105,6 +105,15 @@ export function SubmissionsTable({ slug }: { slug: string }) {
         </Notice>
       ) : null}
 
+      {/* Always in the page, so screen readers hear the change; empty while nothing is fetched. */}
+      <p
+        role="status"
+        className="min-h-5 text-sm text-ink-soft"
+        data-testid="submissions-refreshing"
+      >
+        {result.isFetching && !result.isPending ? "Updating the list…" : ""}
+      </p>
+
       <ScrollCue className="rounded-md border border-ink/15 bg-white/40">
         <SubmissionsGrid
           table={table}
