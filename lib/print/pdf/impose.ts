@@ -88,10 +88,14 @@ export function layoutSheet(input: LayoutInput): ImposedSheetLayout {
       ];
   const chosen = tries.find(([sw, sh]) => fits(need, sw, sh));
   if (!chosen) {
-    const what = marks ? `${formatMm(b)} mm bleed and printer's marks` : `${formatMm(b)} mm bleed`;
+    const what = marks
+      ? `${formatMm(b, 3)} mm bleed and printer's marks`
+      : `${formatMm(b, 3)} mm bleed`;
+    // A minimum, so rounded up to the tenth of a millimetre shown.
+    const up = (v: number) => String(Math.ceil(v * 10 - 1e-6) / 10);
     throw new RangeError(
       `The spread of two ${formatMm(w)} x ${formatMm(h)} mm pages with ${what} needs a sheet of at least ` +
-        `${formatMm(need.w)} x ${formatMm(need.h)} mm; the ${sheet.name} sheet (${formatMm(sheet.widthMm)} x ` +
+        `${up(need.w)} x ${up(need.h)} mm; the ${sheet.name} sheet (${formatMm(sheet.widthMm)} x ` +
         `${formatMm(sheet.heightMm)} mm) is too small either way round.`,
     );
   }
