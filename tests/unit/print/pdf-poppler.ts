@@ -276,3 +276,31 @@ export async function placedArtMatrices(bytes: Uint8Array): Promise<number[][][]
     );
   });
 }
+
+export interface WordBox {
+  word: string;
+  xMin: number;
+  yMin: number;
+  xMax: number;
+  yMax: number;
+}
+
+/** `pdftotext -bbox`: each word and its box in points, origin at the page's top-left. */
+export function wordBoxes(path: string, page: number): WordBox[] {
+  const html = execFileSync(
+    "pdftotext",
+    ["-bbox", "-f", String(page), "-l", String(page), path, "-"],
+    { encoding: "utf8" },
+  );
+  return [
+    ...html.matchAll(
+      /<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)<\/word>/g,
+    ),
+  ].map((m) => ({
+    xMin: Number(m[1]),
+    yMin: Number(m[2]),
+    xMax: Number(m[3]),
+    yMax: Number(m[4]),
+    word: (m[5] ?? "").replace(/&amp;/g, "&").replace(/&lt;/g, "<").replace(/&gt;/g, ">"),
+  }));
+}
