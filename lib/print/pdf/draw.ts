@@ -187,7 +187,7 @@ export async function drawArt(
       art.format === "jpeg" ? doc.embedJpg(art.bytes) : doc.embedPng(art.bytes)
     ).catch((error: unknown) => {
       throw new Error(
-        `The art of page ${pageNumber} is not a readable ${art.format.toUpperCase()} file (${describe(error)}).`,
+        `The art of page ${pageNumber} is not a readable ${art.format.toUpperCase()} file (${errorText(error)}).`,
       );
     });
     xObject = page.node.newXObject("Art", image.ref);
@@ -198,7 +198,7 @@ export async function drawArt(
     const source = await PDFDocument.load(art.bytes, { updateMetadata: false }).catch(
       (error: unknown) => {
         throw new Error(
-          `The art of page ${pageNumber} is not a readable PDF (${describe(error)}).`,
+          `The art of page ${pageNumber} is not a readable PDF (${errorText(error)}).`,
         );
       },
     );
@@ -274,7 +274,7 @@ export async function drawContent(
   await drawArt(doc, page, await content.load(), frame, pageNumber);
 }
 
-export function describe(error: unknown): string {
+export function errorText(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
 }
 
