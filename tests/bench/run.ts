@@ -3,7 +3,8 @@
  * checks run on 100-megapixel files (JPEG, PNG, 16-bit PNG, CMYK TIFF; see ./images.ts) beside
  * baselines timed in the same run on the same bytes: sharp's metadata(), a bare sharp decode and
  * ImageMagick's `identify -verbose`. Then imposition math for 96 pages, cost tables for 20
- * quantities and the page-map proposal (200 pieces into 96 pages).
+ * quantities, the page-map proposal (200 pieces into 96 pages), and the imposed print PDF of 64
+ * pages of 300 ppi JPEG art beside a bare pdf-lib copy of the same pages (./pdf.ts).
  * No thresholds: the figures are for reading, not for passing.
  */
 import sharp from "sharp";
@@ -19,6 +20,7 @@ import { planInkPasses } from "../../lib/print/passes";
 import type { PrintSpec } from "../../lib/print/spec";
 import { benchImages, time } from "./images";
 import { benchMap } from "./map";
+import { benchPdf } from "./pdf";
 
 async function main(): Promise<void> {
   // 200 x 200 mm trim + 3 mm bleed: 10000 px across 206 mm is about 1233 ppi.
@@ -101,6 +103,7 @@ async function main(): Promise<void> {
       ...(await time(500, costs)),
     },
     pageMapProposal: benchMap(),
+    printFile64Pages: await benchPdf(),
   };
   console.log(JSON.stringify(report, null, 2));
 }

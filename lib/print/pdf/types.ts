@@ -59,6 +59,13 @@ export interface ImposeInput {
   creepMm: number[];
   /** The ink these masters are for (slug line), or null for a composite print file. */
   ink: string | null;
+  /**
+   * Crop marks, fold marks and the slug line outside the bleed (default true). Without them the
+   * spread + bleed alone must fit, e.g. an A5 booklet printed edge to edge on A4 with no bleed.
+   */
+  marks?: boolean;
+  /** Inset from the trim that text pages are set inside (default 0.25 in, lib/print/pdf/draw.ts). */
+  safeMarginMm?: number;
   /** Called after each page is placed: pages placed so far of all pages. */
   onProgress?: (done: number, total: number) => void | Promise<void>;
 }
@@ -74,6 +81,8 @@ export interface ProofInput {
   trimHeightMm: number;
   bleedMm: number;
   spreads: ProofSpread[];
+  /** Inset from the trim that text pages are set inside (default 0.25 in, lib/print/pdf/draw.ts). */
+  safeMarginMm?: number;
   onProgress?: (done: number, total: number) => void | Promise<void>;
 }
 
