@@ -25,11 +25,21 @@ export function pngBitDepth(bytes: Uint8Array): number | null {
   return bytes[24] ?? null;
 }
 
+/**
+ * A Node Buffer is often a view into a shared pool (its byteOffset is not 0); pdf-lib reads the
+ * underlying ArrayBuffer from the start, so such a view is copied into its own buffer first.
+ */
+function ownBuffer(bytes: Uint8Array): Uint8Array {
+  if (bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength) return bytes;
+  return new Uint8Array(bytes);
+}
+
 /** The art in a format the builders place, converting only what they cannot. */
 export async function artBytesOf(
-  bytes: Uint8Array,
+  input: Uint8Array,
   { maxPixels }: { maxPixels: number },
 ): Promise<ArtBytes & { converted: boolean }> {
+  const bytes = ownBuffer(input);
   if (startsWith(bytes, PDF)) return { bytes, format: "pdf", converted: false };
   if (startsWith(bytes, JPEG)) return { bytes, format: "jpeg", converted: false };
   const depth = pngBitDepth(bytes);
