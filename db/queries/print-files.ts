@@ -73,12 +73,18 @@ export async function setJobId(id: number, jobId: string): Promise<void> {
   await db.update(o).set({ jobId }).where(eq(o.id, id));
 }
 
-/** Claims a queued output for a worker; false when another worker has it or it is finished. */
-export async function claimOutput(id: number): Promise<boolean> {
+/**
+ * Claims a queued output for a worker; false when another worker has it or it is finished.
+ * `retake` also takes a running one: the queue hands a job again only when its worker stopped
+ * answering (a stalled job), so the row's run is abandoned.
+ */
+export async function claimOutput(id: number, { retake = false } = {}): Promise<boolean> {
   const [result] = await db
     .update(o)
     .set({ state: "running", pagesDone: 0, error: null })
-    .where(and(eq(o.id, id), eq(o.state, "queued")));
+    .where(
+      and(eq(o.id, id), retake ? inArray(o.state, ["queued", "running"]) : eq(o.state, "queued")),
+    );
   return (result as { affectedRows?: number }).affectedRows === 1;
 }
 

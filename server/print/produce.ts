@@ -36,6 +36,8 @@ export const MAP_CHANGED = "the map changed while producing; produce again";
 export interface ProduceHooks {
   /** After each page is placed (the worker reports it to BullMQ). */
   onProgress?: (done: number, total: number) => void | Promise<void>;
+  /** The queue handed this job again after its worker stalled: take over the running row. */
+  retake?: boolean;
 }
 
 export type ProduceResult = "done" | "failed" | "skipped";
@@ -153,7 +155,7 @@ export async function produceOutput(
   outputId: number,
   hooks: ProduceHooks = {},
 ): Promise<ProduceResult> {
-  if (!(await claimOutput(outputId))) return "skipped";
+  if (!(await claimOutput(outputId, { retake: hooks.retake }))) return "skipped";
   // The page being placed when a builder fails, so its message can name it.
   const loaded: Placing = { current: null };
   try {

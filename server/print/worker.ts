@@ -16,6 +16,7 @@ const worker = new Worker<PrintJobData>(
   async (job) => {
     const result = await produceOutput(job.data.outputId, {
       onProgress: (done, total) => job.updateProgress({ done, total }),
+      retake: job.stalledCounter > 0,
     });
     console.log(JSON.stringify({ job: job.id, name: job.name, output: job.data.outputId, result }));
     return result;
