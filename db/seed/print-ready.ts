@@ -4,7 +4,7 @@
  * every page a passing greyscale file checked by the upload pipeline. Bea (the jam's lead) can
  * produce its print files straight away; one credit line is still waiting for approval, so the
  * preflight shows a warning that does not block. Needs the upload fake running.
- * Idempotent: once the jam has any page slots it is left as it is.
+ * Idempotent: once the jam has any page slots or pieces it is left as it is.
  */
 import { eq } from "drizzle-orm";
 import sharp from "sharp";
@@ -76,6 +76,13 @@ export async function seedPrintReady(db: Db): Promise<{ slug: string; pages: num
     .where(eq(schema.pageSlots.anthologyId, jam.id))
     .limit(1);
   if (slot) return null;
+  // A run cut short after adding the pieces leaves them; the jam is then left as it is too.
+  const [already] = await db
+    .select({ id: schema.pieces.id })
+    .from(schema.pieces)
+    .where(eq(schema.pieces.anthologyId, jam.id))
+    .limit(1);
+  if (already) return null;
   const [imke] = await db
     .select({ id: schema.users.id })
     .from(schema.users)
