@@ -5,6 +5,7 @@ import { seedOpenCall } from "./seed/open-call";
 import { seedSubmissions } from "./seed/submissions";
 import { seedReview } from "./seed/review";
 import { seedPageMap } from "./seed/page-map";
+import { seedPrintReady } from "./seed/print-ready";
 
 async function main() {
   const demo = await seedDemoPress(db);
@@ -19,6 +20,8 @@ async function main() {
   const map = await seedPageMap(db);
   if (map)
     console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
+  const jam = await seedPrintReady(db); // needs the upload fake, like the submissions
+  if (jam) console.log(`demo print-ready map seeded: ${jam.slug}, ${jam.pages} pages`);
 }
 
 main()

@@ -36,6 +36,11 @@ const envSchema = z.object({
   FILE_HOST_URL: z.url().optional(),
   MAX_UPLOAD_MB: z.coerce.number().positive().max(512).default(32),
   MAX_IMAGE_MEGAPIXELS: z.coerce.number().positive().max(1000).default(120),
+  /** The print queue's Redis (BullMQ); the launcher's private one unless given. */
+  REDIS_URL: z
+    .string()
+    .regex(/^rediss?:\/\/[^\s]+$/, "must be a redis:// URL, e.g. redis://127.0.0.1:6390")
+    .default("redis://127.0.0.1:6390"),
 });
 
 export type Env = z.infer<typeof envSchema>;

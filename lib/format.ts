@@ -44,3 +44,10 @@ export function mmText(mm: number): string {
 export function lengthInUnit(mm: number, unit: "mm" | "in"): string {
   return unit === "in" ? `${roundTo(mmToIn(mm), 3)} in (${mmText(mm)} mm)` : `${mmText(mm)} mm`;
 }
+
+/** A file size for people: bytes below 1 KB, then KB and MB (1 KB = 1024 bytes, as MAX_UPLOAD_MB counts). */
+export function formatBytes(bytes: number): string {
+  if (bytes < 1024) return `${bytes} bytes`;
+  if (bytes < 1024 * 1024) return `${(bytes / 1024).toFixed(bytes < 10 * 1024 ? 1 : 0)} KB`;
+  return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+}

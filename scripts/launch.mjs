@@ -6,8 +6,9 @@
 //
 // Plain Node ESM with no dependencies: it installs node_modules itself before using any package.
 // The steps live in launch/: processes.mjs (process groups), shutdown.mjs, install.mjs,
-// ports.mjs, database.mjs (database, migrations, seed), app-env.mjs, fakes.mjs, app.mjs (build,
-// serve, welcome) and tests.mjs (runners and the closing line); this file runs them per mode.
+// ports.mjs, database.mjs (database, migrations, seed), app-env.mjs, queue.mjs (Redis and the
+// print worker), fakes.mjs, app.mjs (build, serve, welcome) and tests.mjs (runners and the
+// closing line); this file runs them per mode.
 
 import fs from "node:fs";
 
@@ -19,6 +20,7 @@ import { prepareDatabase, runTsScript } from "./launch/database.mjs";
 import { startFakes } from "./launch/fakes.mjs";
 import { installDependencies, installPdfTools } from "./launch/install.mjs";
 import { checkPorts, PORTS } from "./launch/ports.mjs";
+import { startRedis, startWorker } from "./launch/queue.mjs";
 import { handleSignals, shutdown, shuttingDown, signalled } from "./launch/shutdown.mjs";
 import { report, runPlaywright, runVitest, splitFilters } from "./launch/tests.mjs";
 
@@ -44,13 +46,17 @@ async function main() {
   if (mode === "test") fs.mkdirSync(RESULTS, { recursive: true });
   const db = await prepareDatabase(mode);
   const secret = authSecret();
-  const env = appEnv(mode, ports, db.url, secret);
+  // The print queue's Redis next, so the fakes stop before it and the worker before them.
+  const queue = await startRedis(mode, ports);
+  const env = appEnv(mode, ports, db.url, secret, queue.url);
   note(`DATABASE_URL=${db.url.replace(/:[^:@/]*@/, ":***@")}`);
 
   // The fakes come first: the demo seed stores its artwork through the upload fake.
   const fakes = await startFakes(mode, env);
   await runTsScript("migrate.ts", env);
   await runTsScript("seed.ts", env);
+  // The print worker once the database is migrated and seeded; integration tests use it too.
+  const worker = await startWorker(mode, env);
 
   let app = null;
   if (mode !== "test" || filters.needsApp) {
@@ -62,7 +68,8 @@ async function main() {
 
   if (mode !== "test") {
     printWelcome(ports);
-    const which = await Promise.race([app.exit.then(() => app), fakes.exit.then(() => fakes)]);
+    const watched = [app, fakes, worker, queue.entry].filter(Boolean);
+    const which = await Promise.race(watched.map((e) => e.exit.then(() => e)));
     const r = await which.exit;
     if (shuttingDown) {
       // Stopped by a signal: the handler finishes the shutdown and exits.

@@ -151,3 +151,21 @@ export async function storeFile(
     fileHash: d.fileHash,
   };
 }
+
+/**
+ * Opens a stored file for streaming to a browser (print-file downloads, which may be larger than
+ * the upload limit and are never held whole in memory here).
+ */
+export async function openStoredFile(key: string): Promise<ReadableStream<Uint8Array>> {
+  let response: Response;
+  try {
+    response = await fetch(await storedFileUrl(key), { cache: "no-store" });
+  } catch (error) {
+    throw new StoredFileError(
+      `the file host did not answer (${error instanceof Error ? error.message : String(error)})`,
+    );
+  }
+  if (!response.ok || !response.body)
+    throw new StoredFileError(`the file host answered ${response.status}`);
+  return response.body;
+}

@@ -14,6 +14,7 @@ import type { LayoutFacts } from "@/lib/stages";
 import { personLabel } from "@/lib/people";
 import type { MapChangeRequest } from "@/lib/validations/page-map";
 import type { Anthology } from "./anthologies";
+import { markOutputsStale } from "./print-files";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
@@ -340,6 +341,8 @@ export async function changeMap(
           : {}),
       })
       .where(eq(a.id, row.id));
+    // Print files made from the earlier version no longer match the map.
+    await markOutputsStale(row.id, tx);
     await tx.insert(schema.mapEvents).values({
       anthologyId: row.id,
       actorId: user.id,

@@ -18,6 +18,8 @@ export const ACTIONS = {
   "map:view": ["lead", "editor", "finisher"],
   "map:edit": ["lead", "editor"],
   "production:view": ["lead", "editor", "finisher"],
+  "print:produce": ["lead", "editor"],
+  "print:view": ["lead", "editor", "finisher"],
   "finishing:mark-done": ["lead", "editor", "finisher"],
   "contributors:private-data": ["lead", "editor"],
   "payouts:manage": ["lead"],

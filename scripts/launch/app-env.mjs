@@ -32,11 +32,13 @@ export function authSecret() {
   return secret;
 }
 
-export function appEnv(mode, ports, databaseUrl, secret) {
+export function appEnv(mode, ports, databaseUrl, secret, redisUrl) {
   const appUrl = `http://localhost:${ports.app}`;
   const env = {
     ...process.env,
     DATABASE_URL: databaseUrl,
+    // The print queue (BullMQ): the private Redis of scripts/redis.mjs, or REDIS_URL as given.
+    REDIS_URL: redisUrl,
     AUTH_SECRET: secret,
     AUTH_URL: appUrl,
     AUTH_TRUST_HOST: "true",

@@ -10,11 +10,16 @@ import { Fatal } from "./common.mjs";
 // run its tests at the same time (give it its own QUIRELINE_DB_PORT too).
 const testOffset = Number.parseInt(process.env.QUIRELINE_TEST_PORT_OFFSET ?? "", 10) || 0;
 const shift = (ports, by) => Object.fromEntries(Object.entries(ports).map(([k, v]) => [k, v + by]));
+// QUIRELINE_REDIS_PORT puts the private Redis of the print queue elsewhere (after the offset).
+const redisPort = Number.parseInt(process.env.QUIRELINE_REDIS_PORT ?? "", 10) || 0;
+const withRedis = (ports) => (redisPort ? { ...ports, redis: redisPort } : ports);
 
 export const PORTS = {
-  start: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
-  dev: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
-  test: shift({ app: 3100, upload: 4690, smtp: 4625, outbox: 4626 }, testOffset),
+  start: withRedis({ app: 3000, upload: 4590, smtp: 4525, outbox: 4526, redis: 6390 }),
+  dev: withRedis({ app: 3000, upload: 4590, smtp: 4525, outbox: 4526, redis: 6390 }),
+  test: withRedis(
+    shift({ app: 3100, upload: 4690, smtp: 4625, outbox: 4626, redis: 6490 }, testOffset),
+  ),
 };
 const PORT_OWNERS = {
   3000: "the web app of a Quireline `npm start` or `npm run dev`",
@@ -25,6 +30,8 @@ const PORT_OWNERS = {
   4690: "the upload fake of a Quireline `npm test`",
   4625: "the SMTP sink of a Quireline `npm test`",
   4626: "the outbox API of a Quireline `npm test`",
+  6390: "the print queue's Redis of a Quireline `npm start` or `npm run dev`",
+  6490: "the print queue's Redis of a Quireline `npm test`",
 };
 
 function portFree(port, host) {
@@ -54,7 +61,8 @@ function describeHolder(port) {
     }
     holder = ` by pid ${pid}${cmdline ? ` (${cmdline.slice(0, 160)})` : ""}`;
   }
-  const ours = !holder || /next-server|next (start|dev)|storage-fake|launch\.mjs/.test(holder);
+  const ours =
+    !holder || /next-server|next (start|dev)|storage-fake|launch\.mjs|redis-server/.test(holder);
   const guess =
     ours && PORT_OWNERS[port]
       ? `It is probably ${PORT_OWNERS[port]} that is still running`
@@ -63,9 +71,17 @@ function describeHolder(port) {
 }
 
 export async function checkPorts(ports) {
-  const labels = { app: "web app", upload: "upload fake", smtp: "SMTP sink", outbox: "outbox API" };
+  const labels = {
+    app: "web app",
+    upload: "upload fake",
+    smtp: "SMTP sink",
+    outbox: "outbox API",
+    redis: "print queue's Redis",
+  };
   const problems = [];
   for (const [key, port] of Object.entries(ports)) {
+    // With REDIS_URL no private Redis is started, so its port may be anyone's.
+    if (key === "redis" && process.env.REDIS_URL) continue;
     if ((await portFree(port, "127.0.0.1")) && (await portFree(port, "::1"))) continue;
     const { holder, guess, pid } = describeHolder(port);
     problems.push(

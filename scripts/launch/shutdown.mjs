@@ -1,5 +1,6 @@
 // Stopping everything a run started, on a signal, an error or the end of the tests: the app
-// first, the fakes next (reverse start order), the database last.
+// first, the print worker, the fakes, the print queue's Redis (reverse start order), the
+// database last.
 
 import * as mariadb from "../mariadb.mjs";
 import { note, step } from "./common.mjs";

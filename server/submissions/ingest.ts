@@ -10,6 +10,7 @@ import { createHash } from "node:crypto";
 import { and, eq, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { Anthology } from "@/db/queries/anthologies";
+import { markOutputsStale } from "@/db/queries/print-files";
 import { findCall, refreshPieceVerdict } from "@/db/queries/submissions";
 import type { PieceKind, PieceStatus } from "@/lib/domain";
 import { Refusal } from "@/lib/refusal";
@@ -251,11 +252,14 @@ export async function ingestUpload(
         : "unreadable";
     const current = heldBack === null;
     const revision = current ? page.revision + 1 : page.revision;
-    if (current)
+    if (current) {
       await tx
         .update(pp)
         .set({ currentVersionId: inserted.id, revision })
         .where(eq(pp.id, page.id));
+      // Print files made with the page's earlier file no longer match it.
+      await markOutputsStale(piece.anthologyId, tx);
+    }
     const pieceVerdict = await refreshPieceVerdict(tx, piece.id);
 
     // A file that could not be read answers no fix request: the piece waits for a readable one.

@@ -7,6 +7,7 @@ import "server-only";
  */
 import { eq } from "drizzle-orm";
 import { db, schema } from "@/db";
+import { markOutputsStale } from "@/db/queries/print-files";
 import { listCurrentFiles, refreshPieceVerdicts, storeReport } from "@/db/queries/spec-edit";
 import type { RecheckSummary } from "@/lib/wire/spec-change";
 import { readStoredFile, storedFileUrl } from "@/server/uploads";
@@ -53,5 +54,7 @@ export async function recheckCurrentFiles(anthologyId: number): Promise<RecheckS
     });
   }
   await refreshPieceVerdicts(touched);
+  // The spec changed in what the file check reads: print files made before no longer match it.
+  await markOutputsStale(anthologyId);
   return summary;
 }

@@ -139,4 +139,9 @@ test("the lead's screens fit a phone", async ({ page }) => {
   await page.getByTestId("view-sheets").click();
   await expect(page.getByTestId("view-sheets")).toHaveAttribute("aria-pressed", "true");
   await expectNoSidewaysScroll(page, "the map, as printed");
+
+  await page.goto(`/studio/${slug}/print`);
+  await expect(page.getByTestId("preflight-list")).toBeVisible();
+  await expect(page.getByTestId("produce")).toBeDisabled();
+  await expectNoSidewaysScroll(page, "the print files");
 });

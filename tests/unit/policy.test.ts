@@ -24,6 +24,8 @@ const TABLE: Record<Action, string> = {
   "map:view": "LEF",
   "map:edit": "LE",
   "production:view": "LEF",
+  "print:produce": "LE",
+  "print:view": "LEF",
   "finishing:mark-done": "LEF",
   "contributors:private-data": "LE",
   "payouts:manage": "L",

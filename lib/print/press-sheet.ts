@@ -1,0 +1,137 @@
+/**
+ * The press sheet a print file is imposed on: which named sheets suit a trim, the default one,
+ * and whether a custom sheet holds the flat layout (the pages side by side) with its bleed and
+ * crop marks. Millimetres; sheets are given portrait.
+ */
+import { foldFormatFor } from "@/lib/map/layout";
+import type { Binding } from "@/lib/domain";
+import { findPreset, type SizeMm } from "./sizes";
+
+/**
+ * Room each edge needs past the bleed for crop marks and their offset. Common practice, no
+ * source: marks about 5 mm long set about 3 mm off the trim, so 8 mm past the bleed covers them.
+ */
+export const MARKS_ALLOWANCE_MM = 8;
+
+/**
+ * The named sheets each trim is printed on, folded once: two pages side by side along the spine.
+ * Letter folded = half letter and tabloid folded = letter (REFERENCE.md, ANSI sheets); A4 folded
+ * = A5 and A3 folded = A4 (ISO 216). The first is the default.
+ */
+export const SHEETS_FOR_TRIM: Readonly<Record<string, readonly string[]>> = {
+  "half-letter": ["letter", "a4"],
+  a5: ["a4", "letter"],
+  letter: ["tabloid", "a3"],
+  a4: ["a3", "tabloid"],
+};
+
+/** Named sheets offered for any other trim when the layout fits them, smallest first. */
+export const OTHER_PRESET_SHEETS = ["letter", "a4", "legal", "tabloid", "a3"] as const;
+
+export interface SheetLayoutInput {
+  trimPreset: string | null;
+  trimWidthMm: number;
+  trimHeightMm: number;
+  bleedMm: number;
+  binding: Binding;
+  /** Reader pages of the map (picks the fold of a fold-only sheet). */
+  pageCount: number;
+}
+
+/** Pages across and down on one printed side: 2 x 1 for a saddle stitch, the fold's grid otherwise. */
+export function flatGrid(input: SheetLayoutInput): { columns: number; rows: number } {
+  const fold = input.binding === "fold-only" ? foldFormatFor(input.pageCount) : null;
+  return fold ? { columns: fold.columns, rows: fold.rows } : { columns: 2, rows: 1 };
+}
+
+/**
+ * The smallest sheet the layout needs: the pages edge to edge (the spine carries no bleed), the
+ * bleed round the outside, and room for the marks past it.
+ */
+export function neededSheetMm(input: SheetLayoutInput): SizeMm {
+  const { columns, rows } = flatGrid(input);
+  const edge = 2 * (input.bleedMm + MARKS_ALLOWANCE_MM);
+  return {
+    widthMm: columns * input.trimWidthMm + edge,
+    heightMm: rows * input.trimHeightMm + edge,
+  };
+}
+
+/** True when the sheet holds the needed size one way or the other (it may be laid landscape). */
+export function sheetHolds(sheet: SizeMm, needed: SizeMm): boolean {
+  const e = 1e-6;
+  const fits = (w: number, h: number) => w + e >= needed.widthMm && h + e >= needed.heightMm;
+  return fits(sheet.widthMm, sheet.heightMm) || fits(sheet.heightMm, sheet.widthMm);
+}
+
+export interface PressSheetChoice {
+  id: string;
+  name: string;
+  widthMm: number;
+  heightMm: number;
+}
+
+function presetSheet(id: string): PressSheetChoice | null {
+  const p = findPreset(id);
+  return p ? { id: p.id, name: p.label, widthMm: p.widthMm, heightMm: p.heightMm } : null;
+}
+
+/** The named sheets this trim may be printed on; the first is the default. */
+export function presetSheetsFor(input: SheetLayoutInput): PressSheetChoice[] {
+  const paired = input.trimPreset ? SHEETS_FOR_TRIM[input.trimPreset] : undefined;
+  if (paired && input.binding === "saddle-stitch")
+    return paired.map(presetSheet).filter((s): s is PressSheetChoice => s !== null);
+  const needed = neededSheetMm(input);
+  return OTHER_PRESET_SHEETS.map(presetSheet).filter(
+    (s): s is PressSheetChoice => s !== null && sheetHolds(s, needed),
+  );
+}
+
+/** The sheet the picker starts on, or null when no named sheet suits (a custom one is needed). */
+export function defaultSheetFor(input: SheetLayoutInput): PressSheetChoice | null {
+  return presetSheetsFor(input)[0] ?? null;
+}
+
+export type SheetRequest = string | { widthMm: number; heightMm: number };
+
+export type SheetResolution =
+  { ok: true; sheet: PressSheetChoice } | { ok: false; message: string };
+
+const mm = (v: number) => `${Math.round(v * 10) / 10} mm`;
+
+/** Checks the requested sheet against the trim: a named sheet that suits it, or a custom one it fits. */
+export function resolveSheet(input: SheetLayoutInput, request: SheetRequest): SheetResolution {
+  if (typeof request === "string") {
+    const offered = presetSheetsFor(input);
+    const found = offered.find((s) => s.id === request);
+    if (found) return { ok: true, sheet: found };
+    const known = presetSheet(request);
+    const names = offered.map((s) => s.name).join(" or ");
+    return {
+      ok: false,
+      message: known
+        ? `${known.name} does not suit this trim${names ? `: use ${names}` : ""}, or give a custom sheet size.`
+        : `There is no sheet called "${request}"${names ? `: use ${names}` : ""}, or give a custom sheet size.`,
+    };
+  }
+  const needed = neededSheetMm(input);
+  const portrait = {
+    widthMm: Math.min(request.widthMm, request.heightMm),
+    heightMm: Math.max(request.widthMm, request.heightMm),
+  };
+  if (!sheetHolds(portrait, needed))
+    return {
+      ok: false,
+      message:
+        `A ${mm(portrait.widthMm)} x ${mm(portrait.heightMm)} sheet is too small: the pages side by side with ` +
+        `${mm(input.bleedMm)} bleed and room for crop marks need ${mm(needed.widthMm)} x ${mm(needed.heightMm)}.`,
+    };
+  return {
+    ok: true,
+    sheet: {
+      id: "custom",
+      name: `Custom ${mm(portrait.widthMm)} x ${mm(portrait.heightMm)}`,
+      ...portrait,
+    },
+  };
+}

@@ -1,0 +1,97 @@
+import { describe, expect, it } from "vitest";
+import {
+  defaultSheetFor,
+  MARKS_ALLOWANCE_MM,
+  neededSheetMm,
+  presetSheetsFor,
+  resolveSheet,
+  type SheetLayoutInput,
+} from "@/lib/print/press-sheet";
+import { produceRequestSchema } from "@/lib/validations/print-files";
+
+// REFERENCE.md: half letter 139.7 x 215.9 mm, letter 215.9 x 279.4 mm, tabloid 279.4 x 431.8 mm.
+const halfLetter: SheetLayoutInput = {
+  trimPreset: "half-letter",
+  trimWidthMm: 139.7,
+  trimHeightMm: 215.9,
+  bleedMm: 3.175,
+  binding: "saddle-stitch",
+  pageCount: 16,
+};
+// ISO 216: A5 148 x 210, A4 210 x 297, A3 297 x 420 mm.
+const a5: SheetLayoutInput = {
+  ...halfLetter,
+  trimPreset: "a5",
+  trimWidthMm: 148,
+  trimHeightMm: 210,
+  bleedMm: 3,
+};
+const letter: SheetLayoutInput = {
+  ...halfLetter,
+  trimPreset: "letter",
+  trimWidthMm: 215.9,
+  trimHeightMm: 279.4,
+};
+const a4: SheetLayoutInput = { ...a5, trimPreset: "a4", trimWidthMm: 210, trimHeightMm: 297 };
+
+describe("press sheets for a trim", () => {
+  it("half letter prints on letter (letter folded = half letter, REFERENCE.md) or A4", () => {
+    expect(presetSheetsFor(halfLetter).map((s) => s.id)).toEqual(["letter", "a4"]);
+    expect(defaultSheetFor(halfLetter)?.id).toBe("letter");
+  });
+  it("A5 on A4 (A4 folded = A5, ISO 216) or letter; letter on tabloid or A3; A4 on A3 or tabloid", () => {
+    expect(defaultSheetFor(a5)?.id).toBe("a4");
+    expect(presetSheetsFor(letter).map((s) => s.id)).toEqual(["tabloid", "a3"]);
+    expect(defaultSheetFor(a4)?.id).toBe("a3");
+  });
+  it("a named sheet that does not suit the trim is refused, naming the ones that do", () => {
+    const r = resolveSheet(halfLetter, "tabloid");
+    expect(r.ok).toBe(false);
+    if (!r.ok)
+      expect(r.message).toBe(
+        "Tabloid (11 x 17 in) does not suit this trim: use Letter (8.5 x 11 in) or A4, or give a custom sheet size.",
+      );
+    const unknown = resolveSheet(halfLetter, "napkin");
+    expect(unknown.ok).toBe(false);
+  });
+  it("a custom sheet must hold two pages side by side, the bleed and the marks", () => {
+    // Half letter spread: 2 x 139.7 = 279.4 mm wide, 215.9 mm high, plus 2 x (3.175 + marks).
+    const needed = neededSheetMm(halfLetter);
+    expect(needed.widthMm).toBeCloseTo(279.4 + 2 * (3.175 + MARKS_ALLOWANCE_MM), 6);
+    expect(needed.heightMm).toBeCloseTo(215.9 + 2 * (3.175 + MARKS_ALLOWANCE_MM), 6);
+    // Letter itself (215.9 x 279.4) has no room for bleed or marks.
+    const tooSmall = resolveSheet(halfLetter, { widthMm: 215.9, heightMm: 279.4 });
+    expect(tooSmall.ok).toBe(false);
+    if (!tooSmall.ok) expect(tooSmall.message).toContain("need 301.8 mm x 238.3 mm");
+    // SRA4 (225 x 320 mm, ISO 217) is 225 mm short side: 13.3 mm too little for 238.3 mm.
+    expect(resolveSheet(halfLetter, { widthMm: 225, heightMm: 320 }).ok).toBe(false);
+    // SRA3 (320 x 450 mm, ISO 217) holds it, given either way round.
+    const sra3 = resolveSheet(halfLetter, { widthMm: 450, heightMm: 320 });
+    expect(sra3).toEqual({
+      ok: true,
+      sheet: { id: "custom", name: "Custom 320 mm x 450 mm", widthMm: 320, heightMm: 450 },
+    });
+  });
+  it("an A6 trim with no pairing is offered the named sheets its spread fits", () => {
+    // ISO 216: A6 105 x 148 mm; its spread 210 x 148 mm plus bleed and marks fits letter and A4.
+    const a6 = { ...a5, trimPreset: "a6", trimWidthMm: 105, trimHeightMm: 148 };
+    expect(presetSheetsFor(a6).map((s) => s.id)).toEqual([
+      "letter",
+      "a4",
+      "legal",
+      "tabloid",
+      "a3",
+    ]);
+  });
+  it("the request schema takes a named sheet or a custom size in millimetres", () => {
+    expect(produceRequestSchema.safeParse({ sheet: "letter" }).success).toBe(true);
+    expect(produceRequestSchema.safeParse({ sheet: { widthMm: 320, heightMm: 450 } }).success).toBe(
+      true,
+    );
+    expect(produceRequestSchema.safeParse({ sheet: { widthMm: 0, heightMm: 450 } }).success).toBe(
+      false,
+    );
+    expect(produceRequestSchema.safeParse({ sheet: "" }).success).toBe(false);
+    expect(produceRequestSchema.safeParse({}).success).toBe(false);
+  });
+});
