@@ -5,6 +5,7 @@
  */
 import { foldFormatFor } from "@/lib/map/layout";
 import type { Binding } from "@/lib/domain";
+import { layoutSheet } from "./pdf/impose";
 import { findPreset, type SizeMm } from "./sizes";
 
 /**
@@ -69,6 +70,53 @@ export interface PressSheetChoice {
   name: string;
   widthMm: number;
   heightMm: number;
+  /** What this sheet leaves out (bleed, marks), when it cannot hold them; null when it holds all. */
+  layoutNote?: string | null;
+}
+
+/** How a saddle-stitched spread goes on a sheet: with its bleed, with the marks, or neither. */
+export interface SheetMarks {
+  bleedMm: number;
+  marks: boolean;
+  /** Plain words for the editor when something is left out; null when the sheet holds it all. */
+  note: string | null;
+}
+
+/**
+ * The most a sheet holds of bleed and printer's marks around the two pages: both; the bleed
+ * without marks; or, when the sheet is the spread itself (half letter on letter, A5 on A4:
+ * ANSI and ISO 216 sizes), the pages edge to edge with neither, cut at the trim. Null when the
+ * pages alone do not fit.
+ */
+export function sheetMarksFor(
+  spec: { trimWidthMm: number; trimHeightMm: number; bleedMm: number },
+  sheet: { name: string; widthMm: number; heightMm: number },
+): SheetMarks | null {
+  const tryLayout = (bleedMm: number, marks: boolean) => {
+    try {
+      layoutSheet({ ...spec, bleedMm, sheet, marks });
+      return true;
+    } catch {
+      return false;
+    }
+  };
+  if (tryLayout(spec.bleedMm, true)) return { bleedMm: spec.bleedMm, marks: true, note: null };
+  if (spec.bleedMm > 0 && tryLayout(spec.bleedMm, false))
+    return {
+      bleedMm: spec.bleedMm,
+      marks: false,
+      note: `${sheet.name} holds the pages with their bleed but no crop or fold marks: measure the trim by hand.`,
+    };
+  if (tryLayout(0, false))
+    return {
+      bleedMm: 0,
+      marks: false,
+      note:
+        `${sheet.name} is exactly two pages wide: no room for bleed or crop marks, so art is cut at ` +
+        `the trim and most desktop printers leave a few millimetres unprinted at the edge. ` +
+        `Choose a larger sheet to keep the bleed and marks.`,
+    };
+  return null;
 }
 
 function presetSheet(id: string): PressSheetChoice | null {
@@ -80,7 +128,10 @@ function presetSheet(id: string): PressSheetChoice | null {
 export function presetSheetsFor(input: SheetLayoutInput): PressSheetChoice[] {
   const paired = input.trimPreset ? SHEETS_FOR_TRIM[input.trimPreset] : undefined;
   if (paired && input.binding === "saddle-stitch")
-    return paired.map(presetSheet).filter((s): s is PressSheetChoice => s !== null);
+    return paired
+      .map(presetSheet)
+      .filter((s): s is PressSheetChoice => s !== null)
+      .map((s) => ({ ...s, layoutNote: sheetMarksFor(input, s)?.note ?? null }));
   const needed = neededSheetMm(input);
   return OTHER_PRESET_SHEETS.map(presetSheet).filter(
     (s): s is PressSheetChoice => s !== null && sheetHolds(s, needed),

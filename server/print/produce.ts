@@ -22,6 +22,7 @@ import { env } from "@/lib/env";
 import { allSides, readerSpreads, sheetSides } from "@/lib/map/layout";
 import { bookletCreepMm } from "@/lib/print/creep";
 import { imposeBooklet } from "@/lib/print/pdf/impose";
+import { sheetMarksFor } from "@/lib/print/press-sheet";
 import { readerProof } from "@/lib/print/pdf/proof";
 import type { ArtBytes, PageContent, PlacedPage, ProducedPdf } from "@/lib/print/pdf/types";
 import type { MapState } from "@/lib/map/types";
@@ -194,13 +195,18 @@ export async function produceOutput(
           anthology.coverStock === "separate"
             ? `cover stock${anthology.coverPaperGsm ? ` ${anthology.coverPaperGsm} gsm` : ""}`
             : null;
+        const sheet = {
+          name: output.sheetName ?? "sheet",
+          widthMm: output.sheetWidthMm ?? 0,
+          heightMm: output.sheetHeightMm ?? 0,
+        };
+        // A sheet that is the spread itself (half letter on letter) holds no bleed or marks.
+        const fit = sheetMarksFor(anthology, sheet);
         pdf = await imposeBooklet({
           ...common,
-          sheet: {
-            name: output.sheetName ?? "sheet",
-            widthMm: output.sheetWidthMm ?? 0,
-            heightMm: output.sheetHeightMm ?? 0,
-          },
+          bleedMm: fit?.bleedMm ?? anthology.bleedMm,
+          marks: fit?.marks ?? true,
+          sheet,
           // Sheet 1 (the outermost, which carries the covers) prints first; on a separate
           // cover stock its sides say so in the slug line.
           sides: allSides(plan).map((side) => ({

@@ -5,6 +5,7 @@ import {
   neededSheetMm,
   presetSheetsFor,
   resolveSheet,
+  sheetMarksFor,
   type SheetLayoutInput,
 } from "@/lib/print/press-sheet";
 import { produceRequestSchema } from "@/lib/validations/print-files";
@@ -93,5 +94,43 @@ describe("press sheets for a trim", () => {
     );
     expect(produceRequestSchema.safeParse({ sheet: "" }).success).toBe(false);
     expect(produceRequestSchema.safeParse({}).success).toBe(false);
+  });
+});
+
+describe("sheetMarksFor", () => {
+  // ANSI/ASME Y14.1: letter 8.5 x 11 in, tabloid 11 x 17 in; half letter 5.5 x 8.5 in.
+  const halfLetter = { trimWidthMm: 139.7, trimHeightMm: 215.9, bleedMm: 3.175 };
+  const letter = { name: "Letter", widthMm: 215.9, heightMm: 279.4 };
+  const tabloid = { name: "Tabloid", widthMm: 279.4, heightMm: 431.8 };
+
+  it("keeps the bleed and the marks on a sheet with room for them", () => {
+    expect(sheetMarksFor(halfLetter, tabloid)).toEqual({ bleedMm: 3.175, marks: true, note: null });
+  });
+
+  it("lays half letter on letter edge to edge, the two pages filling the sheet, and says so", () => {
+    // Common practice, no source: a letter sheet folded once makes a half-letter booklet.
+    const fit = sheetMarksFor(halfLetter, letter);
+    expect(fit?.bleedMm).toBe(0);
+    expect(fit?.marks).toBe(false);
+    expect(fit?.note).toContain("no room for bleed or crop marks");
+  });
+
+  it("lays A5 on A4 edge to edge too (ISO 216: A5 148 x 210 mm, A4 210 x 297 mm)", () => {
+    const fit = sheetMarksFor(
+      { trimWidthMm: 148, trimHeightMm: 210, bleedMm: 3 },
+      { name: "A4", widthMm: 210, heightMm: 297 },
+    );
+    expect(fit).toMatchObject({ bleedMm: 0, marks: false });
+  });
+
+  it("keeps the bleed without marks when only that fits", () => {
+    // 2 x 139.7 + 2 x 3.175 = 285.75 mm wide, 222.25 mm tall: too tight for marks.
+    const fit = sheetMarksFor(halfLetter, { name: "Snug", widthMm: 230, heightMm: 290 });
+    expect(fit).toMatchObject({ bleedMm: 3.175, marks: false });
+    expect(fit?.note).toContain("no crop or fold marks");
+  });
+
+  it("is null when the pages alone do not fit", () => {
+    expect(sheetMarksFor(halfLetter, { name: "Small", widthMm: 200, heightMm: 270 })).toBeNull();
   });
 });

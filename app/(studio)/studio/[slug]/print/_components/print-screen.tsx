@@ -290,7 +290,7 @@ function ProduceForm({
       <fieldset className="flex flex-col gap-1 text-sm">
         <legend className="mb-1 font-semibold">Press sheet</legend>
         {data.sheets.map((s) => (
-          <label key={s.id} className="flex items-center gap-2">
+          <label key={s.id} className="flex items-start gap-2">
             <input
               type="radio"
               name={`${id}-sheet`}
@@ -298,11 +298,18 @@ function ProduceForm({
               checked={choice === s.id}
               onChange={() => setChoice(s.id)}
             />
-            {s.name}
-            {s.id === data.defaultSheetId ? " (usual for this trim)" : ""}
+            <span>
+              {s.name}
+              {s.id === data.defaultSheetId ? " (usual for this trim)" : ""}
+              {s.layoutNote ? (
+                <span className="block text-xs text-ink-soft" data-testid={`sheet-note-${s.id}`}>
+                  {s.layoutNote}
+                </span>
+              ) : null}
+            </span>
           </label>
         ))}
-        <label className="flex items-center gap-2">
+        <label className="flex items-start gap-2">
           <input
             type="radio"
             name={`${id}-sheet`}
