@@ -248,7 +248,10 @@ function PageSection({
             <FileSlot
               key={sep.ink}
               testKey={`${page.pageIndex}-${inkKey(sep.ink)}`}
-              heading={requiredFileLabel(name, { kind: "separation", ink: sep.ink })}
+              heading={requiredFileLabel(name === "The page" ? "Page 1" : name, {
+                kind: "separation",
+                ink: sep.ink,
+              })}
               what={masterName(sep.ink)}
               versions={sep.versions}
               currentVersionId={sep.currentVersionId}
