@@ -144,3 +144,23 @@ describe("the spec check of a separation", () => {
     );
   });
 });
+
+describe("the spec report mail for a master", () => {
+  it("names the ink in the subject and the first line", async () => {
+    const { specReportMail } = await import("@/lib/mail/templates/spec-report");
+    const mail = specReportMail({
+      personName: "Wren",
+      fileName: "kelp-teal.png",
+      pieceTitle: "Kelp",
+      pageIndex: 1,
+      ink: "teal",
+      versionNumber: 2,
+      anthologyTitle: "Two Drums",
+      report: { verdict: "pass", findings: [] },
+      notUsed: null,
+      link: "http://localhost/x",
+    });
+    expect(mail.subject).toBe('Spec check: "Kelp", page 1, teal master: Meets the spec');
+    expect(mail.text).toContain('version 2 of the teal master of page 1 of "Kelp"');
+  });
+});
