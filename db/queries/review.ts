@@ -10,6 +10,12 @@ import { PIECE_VERDICT_RANK, PIECE_VERDICTS, type PieceVerdict } from "@/lib/pie
 import type { SubmissionSort, SubmissionsQuery } from "@/lib/validations/review";
 import type { Anthology } from "./anthologies";
 
+/**
+ * Pages with a file: a current composite, or a current master of any ink (a page sent as
+ * separations; whether every ink has one is the piece's verdict's business).
+ */
+const pageHasFile = sql<number>`COALESCE(SUM(CASE WHEN ${schema.piecePages.currentVersionId} IS NOT NULL OR EXISTS (SELECT 1 FROM ${schema.pageSeparations} sep WHERE sep.piece_page_id = ${schema.piecePages.id} AND sep.current_version_id IS NOT NULL) THEN 1 ELSE 0 END), 0)`;
+
 const p = schema.pieces;
 const u = schema.users;
 const pp = schema.piecePages;
@@ -181,10 +187,7 @@ export async function recordPieceMove(
     const refused = editorMoveRefusal(row.status, to);
     if (refused) return { changed: false as const, reason: refused };
     if (to === "accepted" && !options.confirmAccept) {
-      const [files] = await tx
-        .select({ n: count(pp.currentVersionId) })
-        .from(pp)
-        .where(eq(pp.pieceId, pieceId));
+      const [files] = await tx.select({ n: pageHasFile }).from(pp).where(eq(pp.pieceId, pieceId));
       const warning = acceptWarning({ ...row, pagesWithFiles: Number(files?.n ?? 0) });
       if (warning) return { changed: false as const, reason: warning, needsConfirm: true as const };
     }
@@ -225,7 +228,7 @@ export async function acceptWarnings(
       status: p.status,
       verdict: p.verdict,
       pageCount: p.pageCount,
-      pagesWithFiles: count(pp.currentVersionId),
+      pagesWithFiles: pageHasFile,
     })
     .from(p)
     .leftJoin(pp, eq(pp.pieceId, p.id))

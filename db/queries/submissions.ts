@@ -155,7 +155,7 @@ export async function listOwnPieces(anthologyId: number, userId: string): Promis
       verdict: p.verdict,
       updatedAt: p.updatedAt,
       // Spelled out: inside a subquery drizzle leaves columns unqualified, and "id" would mean the page's.
-      pagesWithFiles: sql<number>`(SELECT COUNT(*) FROM piece_page pg WHERE pg.piece_id = piece.id AND pg.current_version_id IS NOT NULL)`,
+      pagesWithFiles: sql<number>`(SELECT COUNT(*) FROM piece_page pg WHERE pg.piece_id = piece.id AND (pg.current_version_id IS NOT NULL OR EXISTS (SELECT 1 FROM page_separation sep WHERE sep.piece_page_id = pg.id AND sep.current_version_id IS NOT NULL)))`,
       firstVersionId: sql<
         number | null
       >`(SELECT pg.current_version_id FROM piece_page pg WHERE pg.piece_id = piece.id AND pg.page_index = 1)`,

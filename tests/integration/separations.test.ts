@@ -210,6 +210,10 @@ describe("separations through the upload route", () => {
     );
     expect(teal).toMatchObject({ ok: true, ink: "teal", current: true, pieceVerdict: "pass" });
     expect(await pieceVerdict(pieceId)).toBe("pass");
+    // The contributor's list counts the page as having its files, though it has no composite.
+    const { listOwnPieces } = await import("@/db/queries/submissions");
+    const own = (await listOwnPieces(openId, bea.id)).find((x) => x.id === pieceId);
+    expect(own?.pagesWithFiles).toBe(1);
   });
 
   it("a master with colour in it is stored with a warning asking for a greyscale master for that ink", async () => {
