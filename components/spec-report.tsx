@@ -83,6 +83,11 @@ export function SpecReport({ report, testId }: { report: Report; testId?: string
           <span className="text-sm">Nothing to fix: this file meets the print spec.</span>
         ) : null}
       </div>
+      {report.ink ? (
+        <p className="text-sm" data-testid={testId ? `${testId}-ink` : undefined}>
+          Checked as the {report.ink} master: one ink&rsquo;s greyscale file for its own drum pass.
+        </p>
+      ) : null}
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-xs">
         {rows.map(([label, value]) => (
           <div key={label} className="contents">

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from "drizzle-orm";
 import { db, schema } from "@/db";
+import { requiredFilesOf } from "@/lib/pieces/separations";
 import { fileVersionSummary } from "./submissions";
 import { PIECE_KINDS, PIECE_STATUS_LABELS, PIECE_STATUSES, type PieceStatus } from "@/lib/domain";
 import { acceptWarning } from "@/lib/pieces/accept-warning";
@@ -8,6 +9,12 @@ import { editorMoveRefusal } from "@/lib/pieces/status";
 import { PIECE_VERDICT_RANK, PIECE_VERDICTS, type PieceVerdict } from "@/lib/pieces/verdict";
 import type { SubmissionSort, SubmissionsQuery } from "@/lib/validations/review";
 import type { Anthology } from "./anthologies";
+
+/**
+ * Pages with a file: a current composite, or a current master of any ink (a page sent as
+ * separations; whether every ink has one is the piece's verdict's business).
+ */
+const pageHasFile = sql<number>`COALESCE(SUM(CASE WHEN ${schema.piecePages.currentVersionId} IS NOT NULL OR EXISTS (SELECT 1 FROM ${schema.pageSeparations} sep WHERE sep.piece_page_id = ${schema.piecePages.id} AND sep.current_version_id IS NOT NULL) THEN 1 ELSE 0 END), 0)`;
 
 const p = schema.pieces;
 const u = schema.users;
@@ -180,10 +187,7 @@ export async function recordPieceMove(
     const refused = editorMoveRefusal(row.status, to);
     if (refused) return { changed: false as const, reason: refused };
     if (to === "accepted" && !options.confirmAccept) {
-      const [files] = await tx
-        .select({ n: count(pp.currentVersionId) })
-        .from(pp)
-        .where(eq(pp.pieceId, pieceId));
+      const [files] = await tx.select({ n: pageHasFile }).from(pp).where(eq(pp.pieceId, pieceId));
       const warning = acceptWarning({ ...row, pagesWithFiles: Number(files?.n ?? 0) });
       if (warning) return { changed: false as const, reason: warning, needsConfirm: true as const };
     }
@@ -224,7 +228,7 @@ export async function acceptWarnings(
       status: p.status,
       verdict: p.verdict,
       pageCount: p.pageCount,
-      pagesWithFiles: count(pp.currentVersionId),
+      pagesWithFiles: pageHasFile,
     })
     .from(p)
     .leftJoin(pp, eq(pp.pieceId, p.id))
@@ -253,6 +257,8 @@ export async function contributorContact(
 
 export type ReviewVersion = {
   id: number;
+  /** The ink of a separation; null for the page's composite file. */
+  ink: string | null;
   versionNumber: number;
   fileName: string;
   mimeType: string;
@@ -266,11 +272,21 @@ export type ReviewVersion = {
   createdAt: Date;
 };
 
+/** One ink's master of a page: the file in use and the earlier ones. */
+export type ReviewSeparation = {
+  ink: string;
+  current: ReviewVersion | null;
+  older: ReviewVersion[];
+};
+
 export type ReviewPage = {
   pageIndex: number;
   altText: string | null;
+  /** The page's composite file (for a page sent as separations, a colour guide, if any). */
   current: ReviewVersion | null;
   older: ReviewVersion[];
+  /** One per ink for a page that takes a master per ink (lib/pieces/separations.ts); else empty. */
+  separations: ReviewSeparation[];
 };
 
 /** A piece with every page, every file version (newest first) and its status history (newest first). */
@@ -288,7 +304,13 @@ export async function getPieceForReview(anthologyId: number, pieceId: number) {
   const uploader = sql<
     string | null
   >`(SELECT ${u.name} FROM ${u} WHERE ${u.id} = ${fv.uploadedBy})`;
-  const [pageRows, versionRows, eventRows] = await Promise.all([
+  const ps = schema.pageSeparations;
+  const [anthology] = await db
+    .select({ printMethod: schema.anthologies.printMethod })
+    .from(schema.anthologies)
+    .where(eq(schema.anthologies.id, anthologyId));
+  const required = anthology ? requiredFilesOf(anthology, head.piece) : [];
+  const [pageRows, versionRows, eventRows, separationRows] = await Promise.all([
     db.select().from(pp).where(eq(pp.pieceId, pieceId)).orderBy(asc(pp.pageIndex)),
     db
       .select({
@@ -314,6 +336,11 @@ export async function getPieceForReview(anthologyId: number, pieceId: number) {
       .leftJoin(u, eq(u.id, schema.pieceEvents.actorId))
       .where(eq(schema.pieceEvents.pieceId, pieceId))
       .orderBy(desc(schema.pieceEvents.createdAt), desc(schema.pieceEvents.id)),
+    db
+      .select({ piecePageId: ps.piecePageId, ink: ps.ink, currentVersionId: ps.currentVersionId })
+      .from(ps)
+      .innerJoin(pp, eq(pp.id, ps.piecePageId))
+      .where(eq(pp.pieceId, pieceId)),
   ]);
 
   const pageCount = Math.max(head.piece.pageCount, ...pageRows.map((r) => r.pageIndex));
@@ -328,12 +355,20 @@ export async function getPieceForReview(anthologyId: number, pieceId: number) {
             hasThumbnail: Boolean(Number(hasThumbnail)),
           }))
       : [];
-    const current = versions.find((v) => v.id === row?.currentVersionId) ?? null;
+    const composites = versions.filter((v) => v.ink === null);
+    const current = composites.find((v) => v.id === row?.currentVersionId) ?? null;
     pages.push({
       pageIndex: index,
       altText: row?.altText ?? null,
       current,
-      older: versions.filter((v) => v !== current),
+      older: composites.filter((v) => v !== current),
+      separations: required.flatMap((file) => {
+        if (file.kind !== "separation") return [];
+        const own = versions.filter((v) => v.ink === file.ink);
+        const sep = separationRows.find((x) => x.piecePageId === row?.id && x.ink === file.ink);
+        const inUse = own.find((v) => v.id === sep?.currentVersionId) ?? null;
+        return [{ ink: file.ink, current: inUse, older: own.filter((v) => v !== inUse) }];
+      }),
     });
   }
 

@@ -26,6 +26,7 @@ const s = schema.pageSlots;
 const p = schema.pieces;
 const pp = schema.piecePages;
 const fv = schema.fileVersions;
+const ps = schema.pageSeparations;
 
 /** The spec columns of an anthology row. */
 export function anthologySpecOf(row: Anthology): AnthologySpec {
@@ -112,14 +113,41 @@ export type StoredCurrentFile = CurrentFile & {
   storageKey: string;
   mimeType: string;
   verdict: string;
+  /** The ink of a separation (checked as that ink's master); null for a composite page file. */
+  ink: string | null;
 };
 
-/** The current file of every page of every piece not withdrawn, in piece and page order. */
+/**
+ * The current file of every page of every piece not withdrawn, and the current master of every
+ * separation, in piece and page order (a page's composite before its separations).
+ */
 export async function listCurrentFiles(
   anthologyId: number,
   tx: Tx | typeof db = db,
 ): Promise<StoredCurrentFile[]> {
-  const rows = await tx
+  const columns = {
+    versionId: fv.id,
+    pieceId: p.id,
+    pieceTitle: p.title,
+    pageIndex: pp.pageIndex,
+    fileName: fv.fileName,
+    mimeType: fv.mimeType,
+    storageKey: fv.storageKey,
+    pieceInks: p.inks,
+    pieceKind: p.kind,
+    report: fv.report,
+    verdict: fv.verdict,
+    ink: fv.ink,
+  };
+  const separations = await tx
+    .select(columns)
+    .from(ps)
+    .innerJoin(pp, eq(pp.id, ps.piecePageId))
+    .innerJoin(p, eq(p.id, pp.pieceId))
+    .innerJoin(fv, eq(fv.id, ps.currentVersionId))
+    .where(and(eq(p.anthologyId, anthologyId), ne(p.status, "withdrawn")))
+    .orderBy(asc(p.id), asc(pp.pageIndex), asc(ps.id));
+  const composites = await tx
     .select({
       versionId: fv.id,
       pieceId: p.id,
@@ -132,6 +160,7 @@ export async function listCurrentFiles(
       pieceKind: p.kind,
       report: fv.report,
       verdict: fv.verdict,
+      ink: fv.ink,
     })
     .from(pp)
     .innerJoin(p, eq(p.id, pp.pieceId))
@@ -144,6 +173,12 @@ export async function listCurrentFiles(
       ),
     )
     .orderBy(asc(p.id), asc(pp.pageIndex));
+  const rows = [...composites, ...separations].sort(
+    (x, y) =>
+      x.pieceId - y.pieceId ||
+      x.pageIndex - y.pageIndex ||
+      Number(x.ink !== null) - Number(y.ink !== null),
+  );
   return rows.map((r) => ({
     ...r,
     pieceInks: Array.isArray(r.pieceInks) ? r.pieceInks : [],

@@ -1,12 +1,13 @@
 import "server-only";
 import { Refusal } from "@/lib/refusal";
 /** What contributors do with their own pieces: create, list, read, withdraw, pick a version. */
-import { and, asc, desc, eq, inArray, ne, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
 import type { PieceStatus, Role } from "@/lib/domain";
 import type { SpecReport } from "@/lib/print/check";
 import { canMove } from "@/lib/pieces/status";
-import { pieceVerdictOf, type PieceVerdict } from "@/lib/pieces/verdict";
+import type { PieceVerdict } from "@/lib/pieces/verdict";
+import { pieceVerdictOverFiles, requiredFilesOf } from "@/lib/pieces/separations";
 import { shouldBecomeCurrent } from "@/lib/pieces/versions";
 import { submitRefusal } from "@/lib/pieces/submission-rules";
 import type { PieceParsed } from "@/lib/validations/piece";
@@ -18,11 +19,13 @@ export { findCall };
 const p = schema.pieces;
 const pp = schema.piecePages;
 const fv = schema.fileVersions;
+const ps = schema.pageSeparations;
 
 /** The columns a screen shows for one file version: everything but the stored bytes. */
 export const fileVersionSummary = {
   id: fv.id,
   piecePageId: fv.piecePageId,
+  ink: fv.ink,
   versionNumber: fv.versionNumber,
   fileName: fv.fileName,
   mimeType: fv.mimeType,
@@ -152,7 +155,7 @@ export async function listOwnPieces(anthologyId: number, userId: string): Promis
       verdict: p.verdict,
       updatedAt: p.updatedAt,
       // Spelled out: inside a subquery drizzle leaves columns unqualified, and "id" would mean the page's.
-      pagesWithFiles: sql<number>`(SELECT COUNT(*) FROM piece_page pg WHERE pg.piece_id = piece.id AND pg.current_version_id IS NOT NULL)`,
+      pagesWithFiles: sql<number>`(SELECT COUNT(*) FROM piece_page pg WHERE pg.piece_id = piece.id AND (pg.current_version_id IS NOT NULL OR EXISTS (SELECT 1 FROM page_separation sep WHERE sep.piece_page_id = pg.id AND sep.current_version_id IS NOT NULL)))`,
       firstVersionId: sql<
         number | null
       >`(SELECT pg.current_version_id FROM piece_page pg WHERE pg.piece_id = piece.id AND pg.page_index = 1)`,
@@ -170,6 +173,8 @@ export async function listOwnPieces(anthologyId: number, userId: string): Promis
 
 export type VersionView = {
   id: number;
+  /** The ink of a separation; null for the page's composite file. */
+  ink: string | null;
   versionNumber: number;
   fileName: string;
   mimeType: string;
@@ -180,12 +185,26 @@ export type VersionView = {
   uploadedAt: string;
 };
 
+/** One ink's separation of a page: its current master, revision guard and every version. */
+export type SeparationView = {
+  ink: string;
+  revision: number;
+  currentVersionId: number | null;
+  versions: VersionView[];
+};
+
 export type PageView = {
   pageIndex: number;
   altText: string | null;
   revision: number;
   currentVersionId: number | null;
+  /** The page's composite files (newest first); separations are in `separations`. */
   versions: VersionView[];
+  /**
+   * One entry per ink the page needs a separation for (lib/pieces/separations.ts), in the
+   * piece's ink order, with a file or not; empty for a page that takes one composite file.
+   */
+  separations: SeparationView[];
 };
 
 export type PieceEventView = {
@@ -204,6 +223,32 @@ export type PieceDetail = {
   pages: PageView[];
   events: PieceEventView[];
 };
+
+function versionView(v: {
+  id: number;
+  ink: string | null;
+  versionNumber: number;
+  fileName: string;
+  mimeType: string;
+  sizeBytes: number;
+  verdict: string;
+  report: unknown;
+  hasThumbnail: number;
+  createdAt: Date;
+}): VersionView {
+  return {
+    id: v.id,
+    ink: v.ink,
+    versionNumber: v.versionNumber,
+    fileName: v.fileName,
+    mimeType: v.mimeType,
+    sizeBytes: v.sizeBytes,
+    verdict: v.verdict,
+    report: v.report as SpecReport,
+    hasThumbnail: Boolean(Number(v.hasThumbnail)),
+    uploadedAt: v.createdAt.toISOString(),
+  };
+}
 
 /** A piece with every page, every version (newest first, with its report) and its history. */
 export async function getPieceDetail(pieceId: number): Promise<PieceDetail | undefined> {
@@ -231,6 +276,22 @@ export async function getPieceDetail(pieceId: number): Promise<PieceDetail | und
         )
         .orderBy(desc(fv.versionNumber))
     : [];
+  const separations = pages.length
+    ? await db
+        .select()
+        .from(ps)
+        .where(
+          inArray(
+            ps.piecePageId,
+            pages.map((pg) => pg.id),
+          ),
+        )
+    : [];
+  const [anthology] = await db
+    .select({ printMethod: schema.anthologies.printMethod })
+    .from(schema.anthologies)
+    .where(eq(schema.anthologies.id, row.piece.anthologyId));
+  const required = anthology ? requiredFilesOf(anthology, row.piece) : [];
   const events = await db
     .select()
     .from(schema.pieceEvents)
@@ -240,25 +301,28 @@ export async function getPieceDetail(pieceId: number): Promise<PieceDetail | und
   return {
     piece: { ...piece, createdAt: createdAt.toISOString(), updatedAt: updatedAt.toISOString() },
     contributor: { id: row.piece.contributorId, name: row.name, email: row.email },
-    pages: pages.map((pg) => ({
-      pageIndex: pg.pageIndex,
-      altText: pg.altText,
-      revision: pg.revision,
-      currentVersionId: pg.currentVersionId,
-      versions: versions
-        .filter((v) => v.piecePageId === pg.id)
-        .map((v) => ({
-          id: v.id,
-          versionNumber: v.versionNumber,
-          fileName: v.fileName,
-          mimeType: v.mimeType,
-          sizeBytes: v.sizeBytes,
-          verdict: v.verdict,
-          report: v.report as SpecReport,
-          hasThumbnail: Boolean(Number(v.hasThumbnail)),
-          uploadedAt: v.createdAt.toISOString(),
-        })),
-    })),
+    pages: pages.map((pg) => {
+      const own = versions.filter((v) => v.piecePageId === pg.id).map(versionView);
+      return {
+        pageIndex: pg.pageIndex,
+        altText: pg.altText,
+        revision: pg.revision,
+        currentVersionId: pg.currentVersionId,
+        versions: own.filter((v) => v.ink === null),
+        separations: required.flatMap((file) => {
+          if (file.kind !== "separation") return [];
+          const sep = separations.find((x) => x.piecePageId === pg.id && x.ink === file.ink);
+          return [
+            {
+              ink: file.ink,
+              revision: sep?.revision ?? 0,
+              currentVersionId: sep?.currentVersionId ?? null,
+              versions: own.filter((v) => v.ink === file.ink),
+            },
+          ];
+        }),
+      };
+    }),
     events: events.map((e) => ({
       fromStatus: e.fromStatus,
       toStatus: e.toStatus,
@@ -337,13 +401,42 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 /** Recomputes and stores a piece's verdict inside a transaction that holds the piece's row lock. */
 export async function refreshPieceVerdict(tx: Tx, pieceId: number): Promise<PieceVerdict> {
+  const [piece] = await tx
+    .select({ inks: p.inks, printMethod: schema.anthologies.printMethod })
+    .from(p)
+    .innerJoin(schema.anthologies, eq(schema.anthologies.id, p.anthologyId))
+    .where(eq(p.id, pieceId));
   const rows = await tx
-    .select({ verdict: fv.verdict })
+    .select({ id: pp.id, verdict: fv.verdict })
     .from(pp)
     .leftJoin(fv, eq(fv.id, pp.currentVersionId))
     .where(eq(pp.pieceId, pieceId))
+    .orderBy(asc(pp.pageIndex))
     .for("update");
-  const verdict = pieceVerdictOf(rows.map((r) => r.verdict ?? null));
+  const seps = rows.length
+    ? await tx
+        .select({ piecePageId: ps.piecePageId, ink: ps.ink, verdict: fv.verdict })
+        .from(ps)
+        .leftJoin(fv, eq(fv.id, ps.currentVersionId))
+        .where(
+          inArray(
+            ps.piecePageId,
+            rows.map((r) => r.id),
+          ),
+        )
+    : [];
+  const required = piece
+    ? requiredFilesOf(piece, { inks: Array.isArray(piece.inks) ? piece.inks : [] })
+    : [{ kind: "composite" as const }];
+  const verdict = pieceVerdictOverFiles(
+    required,
+    rows.map((r) => ({
+      composite: r.verdict ?? null,
+      separations: Object.fromEntries(
+        seps.filter((x) => x.piecePageId === r.id).map((x) => [x.ink, x.verdict ?? null]),
+      ),
+    })),
+  );
   await tx.update(p).set({ verdict }).where(eq(p.id, pieceId));
   return verdict;
 }
@@ -383,7 +476,7 @@ export async function useVersion(
     const [version] = await tx
       .select({ id: fv.id, report: fv.report })
       .from(fv)
-      .where(and(eq(fv.id, choice.versionId), eq(fv.piecePageId, page.id)));
+      .where(and(eq(fv.id, choice.versionId), eq(fv.piecePageId, page.id), isNull(fv.ink)));
     if (!version) throw new Refusal(404, "That version does not belong to this page.");
     const [inUse] =
       page.currentVersionId === null

@@ -3,7 +3,8 @@
  * through the upload service (the local fake must be running) and put through the same spec-check
  * pipeline as a browser upload. Some files pass, some have findings (no bleed, low resolution,
  * colour for the duplicator); one page has two versions; the pieces sit in several statuses, and the
- * accepted ones fill the demo page map.
+ * accepted ones fill the demo page map. Accepted pieces in two inks are sent as one greyscale
+ * master per ink (lib/pieces/separations.ts), so the demo run has masters to make.
  * Idempotent: a piece is matched by its contributor and title and never seeded twice.
  */
 import { and, eq } from "drizzle-orm";
@@ -21,6 +22,8 @@ type Art = {
   height: number;
   colour: boolean;
   svg: (w: number, h: number) => string;
+  /** The ink this file is the master for (a separation); absent for a page's composite file. */
+  ink?: string;
 };
 
 type DemoPiece = {
@@ -152,15 +155,19 @@ const ACCEPTED: DemoPiece[] = [
   creditLine: name as string,
   statement: statement as string,
   altTexts: [],
-  pages: Array.from({ length: pages as number }, (_, p) => [
-    art(
-      `${String(title)
-        .toLowerCase()
-        .replace(/[^a-z]+/g, "-")}-${p + 1}.png`,
-      FULL,
-      study(String(title).split(" ")[0] ?? "", n + p),
-    ),
-  ]),
+  pages: Array.from({ length: pages as number }, (_, p) => {
+    const base = `${String(title)
+      .toLowerCase()
+      .replace(/[^a-z]+/g, "-")}-${p + 1}`;
+    const label = String(title).split(" ")[0] ?? "";
+    const list = inks as string[];
+    if (list.length < 2) return [art(`${base}.png`, FULL, study(label, n + p))];
+    // One master per ink: each ink draws its own share of the study (a different variant).
+    return list.map((ink, k) => ({
+      ...art(`${base}-${ink}.png`, FULL, study(`${label} ${ink}`, n + p + k * 5)),
+      ink,
+    }));
+  }),
   status: { ...ACCEPTED_BY, message: "Accepted: it is going in the almanac." },
 }));
 
@@ -276,13 +283,21 @@ export async function seedSubmissions(db: Db): Promise<number | null> {
     if (exists) continue;
 
     // Store every file first: a piece is only created once its files are safely stored.
-    const stored: { bytes: Buffer; file: Awaited<ReturnType<typeof storeFile>> }[][] = [];
+    const stored: {
+      bytes: Buffer;
+      ink: string | null;
+      file: Awaited<ReturnType<typeof storeFile>>;
+    }[][] = [];
     try {
       for (const files of demo.pages) {
         const page = [];
         for (const a of files) {
           const bytes = await render(a);
-          page.push({ bytes, file: await storeFile(bytes, a.name, "image/png") });
+          page.push({
+            bytes,
+            ink: a.ink ?? null,
+            file: await storeFile(bytes, a.name, "image/png"),
+          });
         }
         stored.push(page);
       }
@@ -304,9 +319,16 @@ export async function seedSubmissions(db: Db): Promise<number | null> {
       altTexts: demo.altTexts,
     });
     for (const [i, files] of stored.entries()) {
-      for (const { bytes, file } of files) {
+      for (const { bytes, ink, file } of files) {
         await ingestUpload(
-          { pieceId: piece.id, pageIndex: i + 1, expectedRevision: null, uploadedBy: userId, file },
+          {
+            pieceId: piece.id,
+            pageIndex: i + 1,
+            ink,
+            expectedRevision: null,
+            uploadedBy: userId,
+            file,
+          },
           { bytes, notify: false, enforceWindow: false },
         );
       }

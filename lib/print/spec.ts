@@ -27,6 +27,11 @@ export interface PrintSpec {
   printMethod: PrintMethod;
   /** Ink names in printing order, e.g. ["black", "fluorescent pink"]; empty for process colour. */
   inks: string[];
+  /**
+   * Set when the file is one ink's separation (a duplicator master): the ink it is for. The
+   * report names it, and colour in the file is a finding of its own.
+   */
+  separationInk?: string;
 }
 
 /** The anthology columns a spec is drawn from; a whole anthology row will do. */

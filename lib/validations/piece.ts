@@ -117,5 +117,10 @@ export const artworkUploadInputSchema = z.object({
   pageIndex: z.number().int().min(1).max(MAX_PIECE_PAGES),
   /** The page revision the contributor's screen showed; a stale one means another tab replaced it. */
   expectedRevision: z.number().int().min(0),
+  /**
+   * The ink this file is the separation (master) for, on a duplicator piece in two or more inks;
+   * absent for a page's composite file. The revision is then that separation's.
+   */
+  ink: z.string().trim().min(1).max(INK_NAME_MAX).optional(),
 });
 export type ArtworkUploadInput = z.infer<typeof artworkUploadInputSchema>;

@@ -11,6 +11,8 @@ export interface RecheckedFile {
   pieceId: number;
   pieceTitle: string;
   pageIndex: number;
+  /** The ink of a separation; null for a page's composite file. */
+  ink: string | null;
   fileName: string;
   before: string;
   after: Verdict;

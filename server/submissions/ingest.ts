@@ -19,7 +19,8 @@ import { specReportMail } from "@/lib/mail/templates/spec-report";
 import { appUrl, sendLoggedMail } from "@/server/mail";
 import { checkArtwork, type SpecReport } from "@/lib/print/check";
 import { statusAfterNewFile } from "@/lib/pieces/status";
-import { specForPiece, uploadsAllowed, uploadsClosedReason } from "@/lib/pieces/submission-rules";
+import { uploadsAllowed, uploadsClosedReason } from "@/lib/pieces/submission-rules";
+import { masterName, specForFile, uploadInkRefusal } from "@/lib/pieces/separations";
 import { isPieceVerdict, type PieceVerdict } from "@/lib/pieces/verdict";
 import { readable, shouldBecomeCurrent, type HeldBack } from "@/lib/pieces/versions";
 import { maxUploadBytes, readStoredFile } from "@/server/uploads";
@@ -29,10 +30,13 @@ import { makeThumbnail } from "./thumbnail";
 const p = schema.pieces;
 const pp = schema.piecePages;
 const fv = schema.fileVersions;
+const ps = schema.pageSeparations;
 
 export type UploadMetadata = {
   pieceId: number;
   pageIndex: number;
+  /** The separation's ink, or null for the page's composite file. */
+  ink: string | null;
   expectedRevision: number;
   userId: string;
 };
@@ -67,17 +71,29 @@ export async function authoriseArtworkUpload(
   if (!row || row.piece.contributorId !== userId)
     throw new Refusal(403, "You can only upload files to your own pieces.");
   if (!row.page) throw new Refusal(404, `This piece has no page ${input.pageIndex}.`);
+  const ink = input.ink ?? null;
+  const wrongInk = uploadInkRefusal(row.anthology, row.piece, ink);
+  if (wrongInk) throw wrongInk;
   const call = await findCall(row.anthology.id);
   if (!uploadsAllowed(row.piece.status, call, row.anthology, now))
     throw new Refusal(409, uploadsClosedReason(row.piece.status));
-  if (row.page.revision !== input.expectedRevision)
+  let revision = row.page.revision;
+  if (ink !== null) {
+    const [separation] = await db
+      .select({ revision: ps.revision })
+      .from(ps)
+      .where(and(eq(ps.piecePageId, row.page.id), eq(ps.ink, ink)));
+    revision = separation?.revision ?? 0;
+  }
+  if (revision !== input.expectedRevision)
     throw new Refusal(
       409,
-      `Page ${input.pageIndex} was replaced in another window since this one loaded; reload to see its current file before replacing it.`,
+      `${ink === null ? "Page" : `The ${masterName(ink)} of page`} ${input.pageIndex} was replaced in another window since this one loaded; reload to see its current file before replacing it.`,
     );
   return {
     pieceId: input.pieceId,
     pageIndex: input.pageIndex,
+    ink,
     expectedRevision: input.expectedRevision,
     userId,
   };
@@ -95,6 +111,8 @@ export type StoredUpload = {
 export type IngestRequest = {
   pieceId: number;
   pageIndex: number;
+  /** The ink of a separation (one ink's master); null or absent for the page's composite file. */
+  ink?: string | null;
   /** The revision the uploader saw; null takes the page whatever its revision (the seed). */
   expectedRevision: number | null;
   uploadedBy: string;
@@ -106,6 +124,8 @@ export type IngestResult = {
   versionNumber: number;
   verdict: SpecReport["verdict"];
   pieceVerdict: PieceVerdict;
+  /** The separation's ink, or null for a composite. */
+  ink: string | null;
   /** False when the file is kept as a version but not used for the page; `heldBack` says why. */
   current: boolean;
   /** Why a file is not current: another upload replaced the page first, or it could not be read. */
@@ -139,8 +159,9 @@ export function checkPageFile(
   bytes: Uint8Array,
   file: { name: string; type: string },
   pageIndex?: number,
+  ink: string | null = null,
 ): Promise<SpecReport> {
-  return checkArtwork(bytes, specForPiece(anthology, piece, pageIndex), {
+  return checkArtwork(bytes, specForFile(anthology, piece, pageIndex, ink), {
     filename: file.name,
     mimeType: file.type,
     maxPixels: maxImagePixels(),
@@ -162,6 +183,9 @@ export async function ingestUpload(
   if (!ctx) throw new Refusal(404, "There is no such piece.");
   if (ctx.piece.contributorId !== request.uploadedBy)
     throw new Refusal(403, "You can only upload files to your own pieces.");
+  const ink = request.ink ?? null;
+  const wrongInk = uploadInkRefusal(ctx.anthology, ctx.piece, ink);
+  if (wrongInk) throw wrongInk;
   const call = await findCall(ctx.anthology.id);
 
   const bytes = options.bytes ?? (await readStoredFile(request.file.ufsUrl, maxUploadBytes()));
@@ -171,6 +195,7 @@ export async function ingestUpload(
     bytes,
     request.file,
     request.pageIndex,
+    ink,
   );
   const thumbnail = await makeThumbnail(bytes, report, maxImagePixels());
   const md5 = createHash("md5").update(bytes).digest("hex");
@@ -187,6 +212,22 @@ export async function ingestUpload(
       .where(and(eq(pp.pieceId, request.pieceId), eq(pp.pageIndex, request.pageIndex)))
       .for("update");
     if (!page) throw new Refusal(404, `This piece has no page ${request.pageIndex}.`);
+    // A separation's current file and revision live in its own row, made on its first upload
+    // and then locked like the page row, so two tabs replacing one master leave one current.
+    let slot: { currentVersionId: number | null; revision: number } = page;
+    if (ink !== null) {
+      await tx
+        .insert(ps)
+        .values({ piecePageId: page.id, ink })
+        .onDuplicateKeyUpdate({ set: { ink: sql`${ps.ink}` } });
+      const [separation] = await tx
+        .select()
+        .from(ps)
+        .where(and(eq(ps.piecePageId, page.id), eq(ps.ink, ink)))
+        .for("update");
+      if (!separation) throw new Error("separation row missing after insert");
+      slot = separation;
+    }
 
     // A hook delivered twice must not make two versions of one stored file.
     const [already] = await tx
@@ -194,7 +235,7 @@ export async function ingestUpload(
       .from(fv)
       .where(and(eq(fv.piecePageId, page.id), eq(fv.storageKey, request.file.key)));
     if (already) {
-      const current = page.currentVersionId === already.id;
+      const current = slot.currentVersionId === already.id;
       const heldBack: HeldBack | null = current
         ? null
         : readable(already.report as SpecReport)
@@ -205,7 +246,7 @@ export async function ingestUpload(
         versionNumber: already.versionNumber,
         current,
         heldBack,
-        revision: page.revision,
+        revision: slot.revision,
         pieceVerdict: (isPieceVerdict(piece.verdict) ? piece.verdict : "missing") as PieceVerdict,
         status: piece.status,
         duplicate: true,
@@ -228,6 +269,7 @@ export async function ingestUpload(
         mimeType: (request.file.type || "application/octet-stream").slice(0, 100),
         sizeBytes: bytes.length,
         md5,
+        ink,
         report,
         verdict: report.verdict,
         thumbnailWebp: thumbnail?.webp ?? null,
@@ -241,25 +283,29 @@ export async function ingestUpload(
     // The file in use stays when another upload replaced the page meanwhile, and when this file
     // could not be read but the one in use can (lib/pieces/versions).
     const [inUse] =
-      page.currentVersionId === null
+      slot.currentVersionId === null
         ? []
-        : await tx.select({ report: fv.report }).from(fv).where(eq(fv.id, page.currentVersionId));
-    const onTime = request.expectedRevision === null || request.expectedRevision === page.revision;
+        : await tx.select({ report: fv.report }).from(fv).where(eq(fv.id, slot.currentVersionId));
+    const onTime = request.expectedRevision === null || request.expectedRevision === slot.revision;
     const heldBack: HeldBack | null = !onTime
       ? "replaced"
       : shouldBecomeCurrent(report, inUse ? (inUse.report as SpecReport) : null)
         ? null
         : "unreadable";
     const current = heldBack === null;
-    const revision = current ? page.revision + 1 : page.revision;
-    if (current) {
+    const revision = current ? slot.revision + 1 : slot.revision;
+    if (current && ink === null)
       await tx
         .update(pp)
         .set({ currentVersionId: inserted.id, revision })
         .where(eq(pp.id, page.id));
-      // Print files made with the page's earlier file no longer match it.
-      await markOutputsStale(piece.anthologyId, tx);
-    }
+    if (current && ink !== null)
+      await tx
+        .update(ps)
+        .set({ currentVersionId: inserted.id, revision })
+        .where(and(eq(ps.piecePageId, page.id), eq(ps.ink, ink)));
+    // Print files made with the page's earlier file no longer match it.
+    if (current) await markOutputsStale(piece.anthologyId, tx);
     const pieceVerdict = await refreshPieceVerdict(tx, piece.id);
 
     // A file that could not be read answers no fix request: the piece waits for a readable one.
@@ -271,7 +317,10 @@ export async function ingestUpload(
         actorId: request.uploadedBy,
         fromStatus: piece.status,
         toStatus: status,
-        message: `New file for page ${request.pageIndex} (version ${versionNumber})`,
+        message:
+          ink === null
+            ? `New file for page ${request.pageIndex} (version ${versionNumber})`
+            : `New ${masterName(ink)} for page ${request.pageIndex} (version ${versionNumber})`,
       });
     } else {
       // Touch the piece so "last updated" reflects the new file.
@@ -299,6 +348,7 @@ export async function ingestUpload(
     versionId: outcome.versionId,
     versionNumber: outcome.versionNumber,
     verdict: report.verdict,
+    ink,
     pieceVerdict: outcome.pieceVerdict,
     current: outcome.current,
     heldBack: outcome.heldBack,
@@ -324,6 +374,7 @@ async function mailReport(
     fileName: request.file.name,
     pieceTitle: outcome.title,
     pageIndex: request.pageIndex,
+    ink: request.ink ?? null,
     versionNumber: outcome.versionNumber,
     anthologyTitle: anthology.title,
     report,

@@ -1,7 +1,7 @@
 import "server-only";
 /**
- * After the print spec changes: every current file of the anthology is fetched again from the
- * file host and checked against the new spec with the upload pipeline's own check, its report
+ * After the print spec changes: every current file of the anthology (each page's file and each
+ * separation's current master, checked as that ink's) is fetched again from the file host and checked against the new spec with the upload pipeline's own check, its report
  * replaced, and each piece's verdict recomputed. One file at a time, so a large anthology does
  * not hold every file in memory at once.
  */
@@ -37,6 +37,7 @@ export async function recheckCurrentFiles(anthologyId: number): Promise<RecheckS
       bytes,
       { name: file.fileName, type: file.mimeType },
       file.pageIndex,
+      file.ink,
     );
     await storeReport(file.versionId, report);
     summary.checked++;
@@ -48,6 +49,7 @@ export async function recheckCurrentFiles(anthologyId: number): Promise<RecheckS
       pieceId: file.pieceId,
       pieceTitle: file.pieceTitle,
       pageIndex: file.pageIndex,
+      ink: file.ink,
       fileName: file.fileName,
       before: file.verdict,
       after: report.verdict,

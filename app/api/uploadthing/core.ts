@@ -36,6 +36,8 @@ export type ArtworkServerData =
       ok: true;
       versionId: number;
       versionNumber: number;
+      /** The separation's ink, or null for a composite page file. */
+      ink: string | null;
       verdict: string;
       pieceVerdict: string;
       current: boolean;
@@ -81,6 +83,7 @@ export const uploadRouter = {
         const result = await ingestUpload({
           pieceId: metadata.pieceId,
           pageIndex: metadata.pageIndex,
+          ink: metadata.ink,
           expectedRevision: metadata.expectedRevision,
           uploadedBy: metadata.userId,
           file: {

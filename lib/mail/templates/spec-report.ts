@@ -20,6 +20,8 @@ export function specReportMail(input: {
   fileName: string;
   pieceTitle: string;
   pageIndex: number;
+  /** The ink of a separation (one ink's master); null or absent for a page's composite file. */
+  ink?: string | null;
   versionNumber: number;
   anthologyTitle: string;
   report: Pick<SpecReport, "verdict" | "findings">;
@@ -27,10 +29,12 @@ export function specReportMail(input: {
   link: string;
 }): Mail {
   const verdict = PIECE_VERDICT_LABELS[input.report.verdict];
+  const master = input.ink ? `, ${input.ink} master` : "";
+  const whichFile = input.ink ? `the ${input.ink} master of page` : "page";
   return composeMail(
-    `Spec check: "${input.pieceTitle}", page ${input.pageIndex}: ${verdict}`,
+    `Spec check: "${input.pieceTitle}", page ${input.pageIndex}${master}: ${verdict}`,
     [
-      `${input.personName ? `Hello ${input.personName}, w` : "W"}e checked ${input.fileName} (version ${input.versionNumber} of page ${input.pageIndex} of "${input.pieceTitle}") against the print spec of ${input.anthologyTitle}.`,
+      `${input.personName ? `Hello ${input.personName}, w` : "W"}e checked ${input.fileName} (version ${input.versionNumber} of ${whichFile} ${input.pageIndex} of "${input.pieceTitle}") against the print spec of ${input.anthologyTitle}.`,
       input.report.findings.length === 0
         ? "It meets the spec: nothing to fix."
         : `Verdict: ${verdict}. What we found:`,

@@ -105,6 +105,16 @@ async function runCheck(
   options: CheckOptions,
   raster: (data: Uint8Array, format: ArtworkFormat) => Promise<RasterResult>,
 ): Promise<SpecReport> {
+  const report = await checkBytes(bytes, spec, options, raster);
+  return spec.separationInk === undefined ? report : { ink: spec.separationInk, ...report };
+}
+
+async function checkBytes(
+  bytes: Uint8Array | Buffer,
+  spec: PrintSpec,
+  options: CheckOptions,
+  raster: (data: Uint8Array, format: ArtworkFormat) => Promise<RasterResult>,
+): Promise<SpecReport> {
   const data = toBytes(bytes);
   const t = triage(data, options);
   const base = { byteLength: data.length, declaredFormat: t.declaredFormat };

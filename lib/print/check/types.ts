@@ -141,6 +141,8 @@ export interface Measured {
 }
 
 export interface SpecReport {
+  /** The ink this file is the separation (master) for; absent for a composite page file. */
+  ink?: string;
   format: ArtworkFormat;
   measured: Measured;
   findings: Finding[];

@@ -9,6 +9,7 @@ export const COLOUR_CODES = new Set([
   "cmyk-for-desktop-printer",
   "no-colour-profile",
   "grey-in-colour-file",
+  "colour-in-separation",
 ]);
 
 /** Colour findings; `colourfulShare` is known only after a decode (undefined from the header alone). */
@@ -23,6 +24,26 @@ export function colourFindings(
   // An RGB file whose pixels are all grey prints like a greyscale one.
   const lookGrey = colourfulShare !== undefined && colourfulShare < 0.001;
   const out: Finding[] = [];
+  const ink = spec.separationInk;
+  if (ink !== undefined && inColour) {
+    // A master is one channel of tone: the duplicator reads only how dark each spot is.
+    out.push(
+      lookGrey
+        ? {
+            code: "grey-in-colour-file",
+            severity: "note",
+            message: `The ${ink} master is saved as ${label} but holds only greys; it will be used as a greyscale file.`,
+            fix: "Nothing to do, or save it as greyscale.",
+          }
+        : {
+            code: "colour-in-separation",
+            severity: "warning",
+            message: `This is the ${ink} master, but the file has colours in it. A master is a greyscale file: the press reads only how dark each spot is, so colours turn into greys you may not expect.`,
+            fix: `Send a greyscale master for ${ink}: black where ${ink} prints fully, greys for lighter tones, white where it does not print.`,
+          },
+    );
+    return out;
+  }
   if (spec.printMethod === "duplicator" && inColour) {
     const inks = spec.inks.length;
     if (lookGrey) {

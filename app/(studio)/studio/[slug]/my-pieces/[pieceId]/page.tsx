@@ -22,6 +22,13 @@ import { canMove } from "@/lib/pieces/status";
 import { shouldBecomeCurrent, unreadableSinceCurrent } from "@/lib/pieces/versions";
 import { specOf } from "@/lib/print/spec";
 import { uploadsAllowed, uploadsClosedReason } from "@/lib/pieces/submission-rules";
+import {
+  masterName,
+  missingFileCount,
+  requiredFileLabel,
+  requiredFilesOf,
+  separationsExplanation,
+} from "@/lib/pieces/separations";
 import { AltTextEditor } from "./_components/alt-text-editor";
 import { PageUpload } from "./_components/page-upload";
 import { UnreadableUploads } from "./_components/unreadable-uploads";
@@ -69,7 +76,17 @@ export default async function MyPiecePage({ params }: Props) {
   const open = uploadsAllowed(piece.status, call, anthology);
   const spec = specOf(anthology);
   const maxMb = env().MAX_UPLOAD_MB;
-  const missing = pages.filter((p) => p.currentVersionId === null).length;
+  const required = requiredFilesOf(anthology, piece);
+  const bySeparation = required.some((f) => f.kind === "separation");
+  const missing = missingFileCount(
+    required,
+    pages.map((page) => ({
+      composite: page.currentVersionId === null ? null : "sent",
+      separations: Object.fromEntries(
+        page.separations.map((s) => [s.ink, s.currentVersionId === null ? null : "sent"]),
+      ),
+    })),
+  );
   const mapPages = await placedPagesOf(anthology, piece.id);
 
   return (
@@ -115,6 +132,14 @@ export default async function MyPiecePage({ params }: Props) {
         <Notice tone="caution" title="Files are closed" testId="uploads-closed">
           {uploadsClosedReason(piece.status)}
         </Notice>
+      ) : missing > 0 && bySeparation ? (
+        <Notice
+          title={`${missing} master${missing === 1 ? "" : "s"} still to send`}
+          testId="files-missing"
+        >
+          Each master is a PNG, JPEG, TIFF, WebP or one-page PDF, up to {maxMb} MB, checked against
+          the print spec as soon as it arrives.
+        </Notice>
       ) : missing > 0 ? (
         <Notice
           title={`${missing} page${missing === 1 ? "" : "s"} still need${missing === 1 ? "s" : ""} a file`}
@@ -122,6 +147,12 @@ export default async function MyPiecePage({ params }: Props) {
         >
           Upload one file per page: PNG, JPEG, TIFF, WebP or a one-page PDF, up to {maxMb} MB each.
           Each file is checked against the print spec as soon as it arrives.
+        </Notice>
+      ) : null}
+
+      {bySeparation ? (
+        <Notice title="One file per ink" testId="separations-explained">
+          {separationsExplanation(piece.inks)}
         </Notice>
       ) : null}
 
@@ -165,6 +196,18 @@ function thumbUrl(v: VersionView) {
   return v.hasThumbnail ? `/api/file-versions/${v.id}/thumbnail` : null;
 }
 
+/** A test id for an ink: "fluorescent pink" → "fluorescent-pink". */
+function inkKey(ink: string) {
+  return ink.toLowerCase().replace(/[^a-z0-9]+/g, "-");
+}
+
+type OverlayFor = {
+  trimWidthMm: number;
+  trimHeightMm: number;
+  bleedMm: number;
+  safeMarginMm: number;
+};
+
 function PageSection({
   page,
   name,
@@ -176,16 +219,12 @@ function PageSection({
   page: PageView;
   name: string;
   pieceId: number;
-  spec: { trimWidthMm: number; trimHeightMm: number; bleedMm: number; safeMarginMm: number };
+  spec: OverlayFor;
   open: boolean;
   maxMb: number;
 }) {
-  const current = page.versions.find((v) => v.id === page.currentVersionId) ?? null;
-  // Newer uploads the check could not read are shown beside the file in use, not tucked away.
-  const unreadable = unreadableSinceCurrent(page.versions, page.currentVersionId);
-  const others = page.versions.filter(
-    (v) => v.id !== page.currentVersionId && !unreadable.includes(v),
-  );
+  const composite = page.versions.find((v) => v.id === page.currentVersionId) ?? null;
+  const bySeparation = page.separations.length > 0;
   return (
     <section
       aria-labelledby={`page-${page.pageIndex}-heading`}
@@ -197,12 +236,129 @@ function PageSection({
         className="border-b border-ink/10 pb-1 text-2xl font-semibold"
       >
         {name}
-        {current ? (
+        {composite && !bySeparation ? (
           <span className="ml-2 text-sm font-normal text-ink-soft">
-            version {current.versionNumber}
+            version {composite.versionNumber}
           </span>
         ) : null}
       </h2>
+      {bySeparation ? (
+        <>
+          {page.separations.map((sep) => (
+            <FileSlot
+              key={sep.ink}
+              testKey={`${page.pageIndex}-${inkKey(sep.ink)}`}
+              heading={requiredFileLabel(name === "The page" ? "Page 1" : name, {
+                kind: "separation",
+                ink: sep.ink,
+              })}
+              what={masterName(sep.ink)}
+              versions={sep.versions}
+              currentVersionId={sep.currentVersionId}
+              revision={sep.revision}
+              ink={sep.ink}
+              pageIndex={page.pageIndex}
+              pieceId={pieceId}
+              spec={spec}
+              open={open}
+              maxMb={maxMb}
+            />
+          ))}
+          {composite || (open && page.versions.length === 0) ? (
+            <details className="rounded-md border border-ink/10 bg-white/40 p-3">
+              <summary className="cursor-pointer text-sm font-semibold">
+                Colour guide for the editors (optional, not printed)
+              </summary>
+              <div className="mt-3">
+                <FileSlot
+                  testKey={`${page.pageIndex}`}
+                  heading={null}
+                  what="colour guide"
+                  versions={page.versions}
+                  currentVersionId={page.currentVersionId}
+                  revision={page.revision}
+                  ink={null}
+                  pageIndex={page.pageIndex}
+                  pieceId={pieceId}
+                  spec={spec}
+                  open={open}
+                  maxMb={maxMb}
+                />
+              </div>
+            </details>
+          ) : null}
+        </>
+      ) : (
+        <FileSlot
+          testKey={`${page.pageIndex}`}
+          heading={null}
+          what="page"
+          versions={page.versions}
+          currentVersionId={page.currentVersionId}
+          revision={page.revision}
+          ink={null}
+          pageIndex={page.pageIndex}
+          pieceId={pieceId}
+          spec={spec}
+          open={open}
+          maxMb={maxMb}
+        />
+      )}
+      <AltTextEditor pieceId={pieceId} pageIndex={page.pageIndex} initial={page.altText ?? ""} />
+    </section>
+  );
+}
+
+/**
+ * One file a page needs (its composite, or one ink's master): the file in use over the trim,
+ * bleed and safe lines, its upload control and report, newer uploads the check could not read,
+ * and the earlier versions.
+ */
+function FileSlot({
+  testKey,
+  heading,
+  what,
+  versions,
+  currentVersionId,
+  revision,
+  ink,
+  pageIndex,
+  pieceId,
+  spec,
+  open,
+  maxMb,
+}: {
+  testKey: string;
+  heading: string | null;
+  /** "page", "black master", "colour guide": what the file is, in sentences. */
+  what: string;
+  versions: VersionView[];
+  currentVersionId: number | null;
+  revision: number;
+  ink: string | null;
+  pageIndex: number;
+  pieceId: number;
+  spec: OverlayFor;
+  open: boolean;
+  maxMb: number;
+}) {
+  const current = versions.find((v) => v.id === currentVersionId) ?? null;
+  // Newer uploads the check could not read are shown beside the file in use, not tucked away.
+  const unreadable = unreadableSinceCurrent(versions, currentVersionId);
+  const others = versions.filter((v) => v.id !== currentVersionId && !unreadable.includes(v));
+  const label = heading ?? `The ${what}`;
+  return (
+    <div className="flex flex-col gap-4" data-testid={`file-${testKey}`}>
+      {heading ? (
+        <h3 className="text-lg font-semibold">
+          {heading}
+          {current ? (
+            <span className="ml-2 text-sm font-normal text-ink-soft">
+              version {current.versionNumber}
+            </span>
+          ) : null}
+        </h3>
+      ) : null}
       <div className="grid gap-6 md:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
         <div className="flex flex-col gap-3">
           {current ? (
@@ -211,24 +367,31 @@ function PageSection({
               measured={current.report.measured}
               format={current.report.format}
               thumbnailUrl={thumbUrl(current)}
-              alt={`${name}: ${current.fileName}`}
-              testId={`overlay-${page.pageIndex}`}
+              alt={`${label}: ${current.fileName}`}
+              testId={`overlay-${testKey}`}
             />
           ) : (
             <div
               className="flex aspect-[3/4] items-center justify-center rounded border border-dashed border-ink/30 text-sm text-ink-faint"
-              data-testid={`no-file-${page.pageIndex}`}
+              data-testid={`no-file-${testKey}`}
             >
-              No file yet
+              {ink ? `No ${what} yet` : "No file yet"}
             </div>
           )}
           {open ? (
             <PageUpload
               pieceId={pieceId}
-              pageIndex={page.pageIndex}
-              revision={page.revision}
+              pageIndex={pageIndex}
+              ink={ink}
+              testKey={testKey}
+              revision={revision}
               maxMb={maxMb}
               replacing={current !== null}
+              label={
+                heading !== null || what === "colour guide"
+                  ? `${current ? "Replace" : "Upload"} the ${what}`
+                  : undefined
+              }
             />
           ) : null}
         </div>
@@ -238,20 +401,15 @@ function PageSection({
               <p className="text-xs text-ink-soft">
                 {current.fileName} · uploaded {when(current.uploadedAt)}
               </p>
-              <SpecReport report={current.report} testId={`report-${page.pageIndex}`} />
+              <SpecReport report={current.report} testId={`report-${testKey}`} />
             </>
           ) : null}
-          <AltTextEditor
-            pieceId={pieceId}
-            pageIndex={page.pageIndex}
-            initial={page.altText ?? ""}
-          />
         </div>
       </div>
       {current && unreadable.length > 0 ? (
         <UnreadableUploads
           versions={unreadable}
-          pageIndex={page.pageIndex}
+          pageIndex={pageIndex}
           inUse={current.versionNumber}
           when={when}
         />
@@ -259,10 +417,10 @@ function PageSection({
       {others.length > 0 ? (
         <details
           className="rounded-md border border-ink/10 bg-white/40 p-3"
-          data-testid={`versions-${page.pageIndex}`}
+          data-testid={`versions-${testKey}`}
         >
           <summary className="cursor-pointer text-sm font-semibold">
-            {others.length} other version{others.length === 1 ? "" : "s"} of this page
+            {others.length} other version{others.length === 1 ? "" : "s"} of this {what}
           </summary>
           <ul className="mt-3 flex flex-col gap-6">
             {others.map((v) => (
@@ -284,12 +442,14 @@ function PageSection({
                     · {when(v.uploadedAt)}
                   </p>
                   <SpecReport report={v.report} />
-                  {open && shouldBecomeCurrent(v.report, current?.report ?? null) ? (
+                  {open &&
+                  ink === null &&
+                  shouldBecomeCurrent(v.report, current?.report ?? null) ? (
                     <UseVersionButton
                       pieceId={pieceId}
-                      pageIndex={page.pageIndex}
+                      pageIndex={pageIndex}
                       versionId={v.id}
-                      revision={page.revision}
+                      revision={revision}
                       versionNumber={v.versionNumber}
                     />
                   ) : null}
@@ -299,6 +459,6 @@ function PageSection({
           </ul>
         </details>
       ) : null}
-    </section>
+    </div>
   );
 }

@@ -36,7 +36,8 @@ export function SpecSaved({ answer }: { answer: SpecSavedAnswer }) {
           <ul className="flex flex-col gap-1 text-sm" data-testid="spec-rechecked">
             {recheck.changed.map((c) => (
               <li key={c.versionId} data-verdict={c.after}>
-                “{c.pieceTitle}”, page {c.pageIndex} ({c.fileName}): {verdictWords(c.before)} →{" "}
+                “{c.pieceTitle}”, page {c.pageIndex}
+                {c.ink ? `, ${c.ink} master` : ""} ({c.fileName}): {verdictWords(c.before)} →{" "}
                 <span className="font-semibold">{verdictWords(c.after)}</span>
               </li>
             ))}

@@ -12,6 +12,7 @@ import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS } from "@/lib/domain";
 import type { OverlaySpec } from "@/lib/pieces/overlay";
 import { specOf } from "@/lib/print/spec";
 import { editorMovesFrom } from "@/lib/pieces/status";
+import { listInks, masterName, requiredFileLabel } from "@/lib/pieces/separations";
 import type { SpecReport as Report } from "@/lib/print/check";
 import { EditorNotes } from "./_components/editor-notes";
 import { StatusChangeForm } from "./_components/status-change-form";
@@ -107,7 +108,70 @@ export default async function SubmissionPage({
                 <h3 id={`page-${page.pageIndex}`} className="text-lg font-semibold">
                   Page {page.pageIndex} of {pages.length}
                 </h3>
-                {page.current ? (
+                {page.separations.length > 0 ? (
+                  <>
+                    <p className="text-sm text-ink-soft">
+                      Sent as one greyscale master per ink (
+                      {listInks(page.separations.map((s) => s.ink))}).
+                    </p>
+                    {page.separations.map((sep) => (
+                      <div
+                        key={sep.ink}
+                        className="flex flex-col gap-2"
+                        data-testid="review-separation"
+                        data-ink={sep.ink}
+                      >
+                        <h4 className="font-semibold">
+                          {requiredFileLabel(`Page ${page.pageIndex}`, {
+                            kind: "separation",
+                            ink: sep.ink,
+                          })}
+                        </h4>
+                        {sep.current ? (
+                          <VersionView
+                            version={sep.current}
+                            spec={spec}
+                            alt={`${piece.title}, page ${page.pageIndex}, ${masterName(sep.ink)}`}
+                            current
+                          />
+                        ) : (
+                          <p className="rounded-md border border-dashed border-ink/30 px-4 py-6 text-sm text-ink-soft">
+                            No {masterName(sep.ink)} for this page yet.
+                          </p>
+                        )}
+                        {sep.older.length ? (
+                          <details className="rounded-md border border-ink/15 px-3 py-2">
+                            <summary className="cursor-pointer text-sm font-semibold">
+                              Earlier {masterName(sep.ink)}s ({sep.older.length})
+                            </summary>
+                            <div className="mt-3 flex flex-col gap-6">
+                              {sep.older.map((version) => (
+                                <VersionView
+                                  key={version.id}
+                                  version={version}
+                                  spec={spec}
+                                  alt={`${piece.title}, page ${page.pageIndex}, ${masterName(sep.ink)}, version ${version.versionNumber}`}
+                                />
+                              ))}
+                            </div>
+                          </details>
+                        ) : null}
+                      </div>
+                    ))}
+                    {page.current ? (
+                      <div className="flex flex-col gap-2">
+                        <h4 className="font-semibold">Colour guide (not printed)</h4>
+                        <VersionView
+                          version={page.current}
+                          spec={spec}
+                          alt={
+                            page.altText ?? `${piece.title}, page ${page.pageIndex}, colour guide`
+                          }
+                        />
+                      </div>
+                    ) : null}
+                  </>
+                ) : page.current ? (
                   <VersionView
                     version={page.current}
                     spec={spec}

@@ -16,23 +16,34 @@ const NOT_FINISHED = "The upload did not finish. Nothing was kept; please try ag
 type Outcome = { tone: "info" | "warn" | "error"; text: string; verdict?: string } | null;
 
 /**
- * Uploads one file for one page, with a progress bar; the page refreshes to show the new report.
+ * Uploads one file for one page (its composite, or with `ink` one ink's master), with a progress
+ * bar; the page refreshes to show the new report.
  * Until the uploader is ready the control is off and says so; a file chosen or dropped meanwhile
  * is held and sent as soon as it is, so a choice is never silently lost.
  */
 export function PageUpload({
   pieceId,
   pageIndex,
+  ink = null,
+  testKey = String(pageIndex),
   revision,
   maxMb,
   replacing,
+  label,
 }: {
   pieceId: number;
   pageIndex: number;
+  /** The ink this control sends a master for; null for the page's composite file. */
+  ink?: string | null;
+  /** What the test ids end with ("1", or "1-teal" for a master). */
+  testKey?: string;
+  /** The revision of what this control replaces: the page's, or that ink's separation's. */
   revision: number;
   maxMb: number;
   replacing: boolean;
+  label?: string;
 }) {
+  const what = ink ? `${ink} master` : "page";
   const router = useRouter();
   const inputId = useId();
   const input = useRef<HTMLInputElement>(null);
@@ -68,7 +79,12 @@ export function PageUpload({
     setProgress(0);
     failure.current = null;
     try {
-      const result = await startUpload([file], { pieceId, pageIndex, expectedRevision: revision });
+      const result = await startUpload([file], {
+        pieceId,
+        pageIndex,
+        expectedRevision: revision,
+        ...(ink ? { ink } : {}),
+      });
       const data = result?.[0]?.serverData as ArtworkServerData | undefined;
       if (!data) throw new Error(failure.current ?? NOT_FINISHED);
       if (!data.ok) {
@@ -82,13 +98,17 @@ export function PageUpload({
       } else if (!data.current) {
         setOutcome({
           tone: "warn",
-          text: `Another upload replaced this page while yours was on its way. Yours is kept as version ${data.versionNumber}; you can choose it below.`,
+          text: ink
+            ? `Another upload replaced this ${what} while yours was on its way. Yours is kept as version ${data.versionNumber}, listed below.`
+            : `Another upload replaced this page while yours was on its way. Yours is kept as version ${data.versionNumber}; you can choose it below.`,
           verdict: data.verdict,
         });
       } else {
         setOutcome({
           tone: "info",
-          text: `Version ${data.versionNumber} checked.`,
+          text: ink
+            ? `Version ${data.versionNumber} of the ${what} checked.`
+            : `Version ${data.versionNumber} checked.`,
           verdict: data.verdict,
         });
       }
@@ -145,7 +165,7 @@ export function PageUpload({
 
   const busy = phase !== "idle";
   return (
-    <div className="flex flex-col gap-2" data-testid={`upload-${pageIndex}`}>
+    <div className="flex flex-col gap-2" data-testid={`upload-${testKey}`}>
       <div
         onDragOver={(e) => {
           e.preventDefault();
@@ -157,7 +177,7 @@ export function PageUpload({
         className={`flex flex-col gap-2 rounded-md border-2 border-dashed p-3 text-sm ${dragging ? "border-teal bg-teal-light/50" : "border-ink/25"}`}
       >
         <label htmlFor={inputId} className="font-semibold">
-          {replacing ? "Replace with a new file" : "Upload the file for this page"}
+          {label ?? (replacing ? "Replace with a new file" : "Upload the file for this page")}
         </label>
         <input
           ref={input}
@@ -166,7 +186,7 @@ export function PageUpload({
           accept={ACCEPT}
           disabled={busy || state !== "ready"}
           aria-describedby={`${inputId}-limits`}
-          data-testid={`upload-input-${pageIndex}`}
+          data-testid={`upload-input-${testKey}`}
           onChange={(e) => {
             const file = e.target.files?.[0];
             if (file) choose(file);
@@ -180,7 +200,7 @@ export function PageUpload({
       {state === "preparing" ? (
         <p
           className="text-xs text-ink-soft"
-          data-testid={`upload-waiting-${pageIndex}`}
+          data-testid={`upload-waiting-${testKey}`}
           aria-live="polite"
         >
           Getting the uploader ready…
@@ -188,7 +208,7 @@ export function PageUpload({
         </p>
       ) : null}
       {state === "unavailable" && !outcome ? (
-        <Notice tone="error" testId={`upload-unavailable-${pageIndex}`}>
+        <Notice tone="error" testId={`upload-unavailable-${testKey}`}>
           The uploader could not start, so files cannot be sent from this page just now. Reload the
           page to try again.
         </Notice>
@@ -196,14 +216,14 @@ export function PageUpload({
       {busy ? (
         <div
           className="flex items-center gap-2 text-xs"
-          data-testid={`upload-progress-${pageIndex}`}
+          data-testid={`upload-progress-${testKey}`}
           aria-live="polite"
         >
           <progress
             value={progress ?? 0}
             max={100}
             className="h-2 flex-1 accent-teal"
-            aria-label="Upload progress"
+            aria-label={ink ? `Upload progress, ${what}` : "Upload progress"}
           />
           <span className="w-40 text-right">
             {phase === "checking"
@@ -213,7 +233,7 @@ export function PageUpload({
         </div>
       ) : null}
       {outcome ? (
-        <Notice tone={outcome.tone} testId={`upload-outcome-${pageIndex}`}>
+        <Notice tone={outcome.tone} testId={`upload-outcome-${testKey}`}>
           <span className="inline-flex flex-wrap items-center gap-2">
             {outcome.text}
             {outcome.verdict ? <VerdictBadge verdict={outcome.verdict} /> : null}
