@@ -12,6 +12,7 @@ const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "/submissions", label: "Submissions", action: "pieces:review" },
   { href: "/my-pieces", label: "My pieces", action: "pieces:view-own" },
   { href: "/map", label: "Page map", action: "map:view" },
+  { href: "/credits", label: "Credits", action: "credits:manage" },
   { href: "/members", label: "People", action: "members:invite" },
 ];
 
