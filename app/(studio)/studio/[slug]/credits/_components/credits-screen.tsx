@@ -134,8 +134,7 @@ export function CreditsScreen({ slug, initial }: { slug: string; initial: Credit
           ) : (
             <>
               No page is kept for the credits yet. Keep one on the{" "}
-              <Link href={`/studio/${slug}/map`}>page map</Link> (choose a page, then “Keep for…”
-              credits).
+              <Link href={`/studio/${slug}/map`}>page map</Link> (choose a page, then “Keep this page for” the credits).
             </>
           )}
         </p>
