@@ -5,6 +5,7 @@ import { seedOpenCall } from "./seed/open-call";
 import { seedSubmissions } from "./seed/submissions";
 import { seedReview } from "./seed/review";
 import { seedPageMap } from "./seed/page-map";
+import { seedCredits } from "./seed/credits";
 
 async function main() {
   const demo = await seedDemoPress(db);
@@ -19,6 +20,9 @@ async function main() {
   const map = await seedPageMap(db);
   if (map)
     console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
+  const credits = await seedCredits(db); // after the map: it picks who is still outstanding by spread
+  if (credits)
+    console.log(`credits seeded: ${credits.approved} approved, ${credits.outstanding} outstanding`);
 }
 
 main()
