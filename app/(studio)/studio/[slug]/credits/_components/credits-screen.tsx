@@ -134,7 +134,8 @@ export function CreditsScreen({ slug, initial }: { slug: string; initial: Credit
           ) : (
             <>
               No page is kept for the credits yet. Keep one on the{" "}
-              <Link href={`/studio/${slug}/map`}>page map</Link> (choose a page, then “Keep this page for” the credits).
+              <Link href={`/studio/${slug}/map`}>page map</Link> (choose a page, then “Keep this
+              page for” the credits).
             </>
           )}
         </p>
