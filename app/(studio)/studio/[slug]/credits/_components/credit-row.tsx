@@ -143,7 +143,7 @@ export function CreditRow({
           <Button
             variant="quiet"
             onClick={() => setEditing(true)}
-            aria-label={`Change the credit line of “${row.title}”`}
+            aria-label={`Change line of “${row.title}”`}
           >
             Change line
           </Button>
