@@ -22,6 +22,7 @@ const creditLineRoute = await import("@/app/api/anthologies/[slug]/credits/[piec
 const approveRoute = await import("@/app/api/credits/[token]/route");
 const pieceRoute = await import("@/app/api/pieces/[id]/route");
 const proofRoute = await import("@/app/api/pieces/[id]/proof/[page]/route");
+const mapRoute = await import("@/app/api/anthologies/[slug]/map/route");
 
 type Person = { id: string; name: string | null; email: string };
 type Json = Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
@@ -451,5 +452,26 @@ describe("proof thumbnails", () => {
     expect((await thumb(null, piece.tide, 6)).status).toBe(401);
     // A reserved page holds no piece.
     expect((await thumb(people.pell, piece.moths, 3)).status).toBe(404);
+  });
+});
+
+describe("artwork on the page map", () => {
+  const cards = async (viewer: Person) => {
+    as(viewer);
+    const { body } = await answer(
+      await mapRoute.GET(new Request(api(`/anthologies/${slug}/map`)), slugCtx()),
+    );
+    return body.cards as Json[];
+  };
+
+  it("gives editors each page's preview and description, and finishers none", async () => {
+    const heron = (await cards(people.lead)).find((c) => c.id === piece.heron)!;
+    expect(heron.art).toHaveLength(2);
+    expect(heron.art[1]).toMatchObject({
+      pageIndex: 2,
+      altText: "Heron at the Sluice Gate page 2",
+      thumbnailUrl: expect.stringMatching(/^\/api\/file-versions\/\d+\/thumbnail$/),
+    });
+    for (const card of await cards(people.finisher)) expect(card.art).toBeUndefined();
   });
 });
