@@ -6,6 +6,7 @@ import { seedSubmissions } from "./seed/submissions";
 import { seedReview } from "./seed/review";
 import { seedPageMap } from "./seed/page-map";
 import { seedPrintReady } from "./seed/print-ready";
+import { seedCredits } from "./seed/credits";
 
 async function main() {
   const demo = await seedDemoPress(db);
@@ -22,6 +23,9 @@ async function main() {
     console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
   const jam = await seedPrintReady(db); // needs the upload fake, like the submissions
   if (jam) console.log(`demo print-ready map seeded: ${jam.slug}, ${jam.pages} pages`);
+  const credits = await seedCredits(db); // after the map: it picks who is still outstanding by spread
+  if (credits)
+    console.log(`credits seeded: ${credits.approved} approved, ${credits.outstanding} outstanding`);
 }
 
 main()

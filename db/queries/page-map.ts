@@ -8,7 +8,7 @@ import { countPasses } from "@/lib/map/passes";
 import { piecePages, unplacedPieces } from "@/lib/map/state";
 import type { MapPiece, MapSlot, MapState, Proposal } from "@/lib/map/types";
 import { checkedChange } from "@/lib/map-edits/apply";
-import type { MapEventView, MapPayload, MapPieceCard } from "@/lib/map-edits/payload";
+import type { MapEventView, MapPageArt, MapPayload, MapPieceCard } from "@/lib/map-edits/payload";
 import type { SessionUser } from "@/lib/domain";
 import type { LayoutFacts } from "@/lib/stages";
 import { personLabel } from "@/lib/people";
@@ -36,6 +36,41 @@ type PieceRow = MapPiece &
 export interface MapViewer {
   canEdit: boolean;
   mayShowEmail: boolean;
+  /** May see the pieces' artwork previews (lib/auth/policy.ts maySeePiece as an editor). */
+  mayShowArt?: boolean;
+}
+
+/** Each page's current file preview and description, for the pieces given. */
+async function readArt(tx: Tx, pieceIds: number[]): Promise<Map<number, MapPageArt[]>> {
+  const out = new Map<number, MapPageArt[]>();
+  if (pieceIds.length === 0) return out;
+  const pp = schema.piecePages;
+  const fv = schema.fileVersions;
+  const rows = await tx
+    .select({
+      pieceId: pp.pieceId,
+      pageIndex: pp.pageIndex,
+      altText: pp.altText,
+      versionId: fv.id,
+      hasThumbnail: sql<number>`${fv.thumbnailWebp} IS NOT NULL`,
+    })
+    .from(pp)
+    .leftJoin(fv, eq(fv.id, pp.currentVersionId))
+    .where(inArray(pp.pieceId, pieceIds))
+    .orderBy(asc(pp.pieceId), asc(pp.pageIndex));
+  for (const r of rows) {
+    const list = out.get(r.pieceId) ?? [];
+    list.push({
+      pageIndex: r.pageIndex,
+      thumbnailUrl:
+        r.versionId !== null && Number(r.hasThumbnail)
+          ? `/api/file-versions/${r.versionId}/thumbnail`
+          : null,
+      altText: r.altText?.trim() || null,
+    });
+    out.set(r.pieceId, list);
+  }
+  return out;
 }
 
 /** Accepted pieces, plus any piece still on the map after leaving "accepted" (shown as left out so it can be taken off). */
@@ -170,7 +205,7 @@ async function listEvents(
 async function payloadIn(
   tx: Tx,
   anthologyId: number,
-  { canEdit, mayShowEmail }: MapViewer,
+  { canEdit, mayShowEmail, mayShowArt = false }: MapViewer,
   asked: number | undefined,
 ): Promise<MapPayload> {
   const [anthology] = await tx.select().from(a).where(eq(a.id, anthologyId));
@@ -178,6 +213,12 @@ async function payloadIn(
   const copies = asked ?? anthology.plannedCopies;
   const pieces = await readPieces(tx, anthologyId);
   const state = toState(anthology, await readSlots(tx, anthologyId, false), pieces);
+  const art = mayShowArt
+    ? await readArt(
+        tx,
+        pieces.map((x) => x.id),
+      )
+    : null;
   return {
     anthology: {
       id: anthology.id,
@@ -198,6 +239,7 @@ async function payloadIn(
         { mayShowEmail },
       ),
       status: x.status,
+      ...(art ? { art: art.get(x.id) ?? [] } : {}),
     })),
     check: checkMap(state),
     passes: countPasses(state, copies),
@@ -290,7 +332,8 @@ export async function changeMap(
   request: MapChangeRequest,
   { copies, mayShowEmail }: { copies?: number; mayShowEmail: boolean },
 ): Promise<ChangeOutcome> {
-  const viewer: MapViewer = { canEdit: true, mayShowEmail };
+  // Only editors change the map, and editors may see every piece's artwork.
+  const viewer: MapViewer = { canEdit: true, mayShowEmail, mayShowArt: true };
   await ensureSlots(anthology);
   return db.transaction(async (tx) => {
     const [row] = await tx.select().from(a).where(eq(a.id, anthology.id)).for("update");

@@ -22,6 +22,8 @@ export const ACTIONS = {
   "print:view": ["lead", "editor", "finisher"],
   "finishing:mark-done": ["lead", "editor", "finisher"],
   "contributors:private-data": ["lead", "editor"],
+  /** The credits screen: credit lines, asking contributors to approve them, changing a line. */
+  "credits:manage": ["lead", "editor"],
   "payouts:manage": ["lead"],
   "payouts:view-own": ["contributor"],
 } as const satisfies Record<string, readonly Role[]>;
@@ -48,6 +50,27 @@ export function rolesInvitableBy(role: Role | null | undefined): Role[] {
 export function maySeePiece(role: Role | null | undefined, isOwner: boolean): boolean {
   if (can(role, "pieces:review")) return true;
   return isOwner && can(role, "pieces:view-own");
+}
+
+/**
+ * Whether a piece counts as public for other contributors' proofs: its contributor approved its
+ * credit line, so they have agreed to how it appears in the book; until then others see only
+ * its title on a shared spread, never its artwork.
+ */
+export function pieceIsPublic(piece: { creditApprovedAt: Date | null }): boolean {
+  return piece.creditApprovedAt !== null;
+}
+
+/**
+ * Who may see a neighbour's artwork thumbnail in the proof of their own piece: a member who may
+ * see their own pieces (a contributor), whose own piece shares a reader spread with it, and only
+ * when the neighbour is public. Editors use the ordinary preview (`maySeePiece`) instead.
+ */
+export function maySeeProofNeighbour(
+  role: Role | null | undefined,
+  facts: { sharesSpreadWithOwnPiece: boolean; neighbourIsPublic: boolean },
+): boolean {
+  return can(role, "pieces:view-own") && facts.sharesSpreadWithOwnPiece && facts.neighbourIsPublic;
 }
 
 /** Why a change to someone's role can be refused, in plain words. */

@@ -7,6 +7,18 @@ export interface MapPieceCard {
   id: number;
   contributorName: string;
   status: PieceStatus;
+  /**
+   * Each page's current artwork preview (the editor thumbnail route) and its description, page 1
+   * first; absent for viewers who may not see pieces (finishers), null where a page has no preview.
+   */
+  art?: MapPageArt[];
+}
+
+/** One page of a piece as the map shows it. */
+export interface MapPageArt {
+  pageIndex: number;
+  thumbnailUrl: string | null;
+  altText: string | null;
 }
 
 export interface MapEventView {

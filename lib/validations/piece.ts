@@ -2,6 +2,7 @@ import { z } from "zod";
 import { PIECE_KINDS, type PieceKind } from "@/lib/domain";
 import { INK_NAME_MAX, INKS_MAX, LENGTH, TEXT_CAP } from "./limits";
 import { multiLineText, singleLineText } from "./text";
+import { creditLineField } from "./credits";
 
 /** What an open call allows a piece to be; the form and the route handler check against it. */
 export type CallRules = { allowedKinds: PieceKind[]; maxRunPages: number; allowedInks: string[] };
@@ -108,6 +109,7 @@ export const pieceActionSchema = z.discriminatedUnion("action", [
     pageIndex: z.number().int().min(1),
     altText: multiLineText(TEXT_CAP.altText),
   }),
+  z.object({ action: z.literal("credit-line"), creditLine: creditLineField }),
 ]);
 export type PieceAction = z.infer<typeof pieceActionSchema>;
 

@@ -62,6 +62,10 @@ test("public screens fit a phone", async ({ page }) => {
   await page.goto(`/calls/${slug}`);
   await expect(page.locator("h1")).toBeVisible();
   await expectNoSidewaysScroll(page, "the public call");
+
+  await page.goto("/credits/c1.1.2.3");
+  await expect(page.locator("h1")).toBeVisible();
+  await expectNoSidewaysScroll(page, "a credit link");
 });
 
 test("a contributor's screens fit a phone", async ({ page }) => {
@@ -83,7 +87,7 @@ test("a contributor's screens fit a phone", async ({ page }) => {
 });
 
 test("the lead's screens fit a phone", async ({ page }) => {
-  test.slow(); // eight screens in one walk
+  test.slow(); // nine screens in one walk
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   await expectNoSidewaysScroll(page, "the studio home");
@@ -131,6 +135,10 @@ test("the lead's screens fit a phone", async ({ page }) => {
   await rows.getByTestId("piece-link").first().click();
   await expect(page.getByTestId("piece-title")).toBeVisible();
   await expectNoSidewaysScroll(page, "the piece detail");
+
+  await page.goto(`/studio/${slug}/credits`);
+  await expect(page.getByTestId("credits-preview")).toBeVisible();
+  await expectNoSidewaysScroll(page, "the credits screen");
 
   await page.goto(`/studio/${slug}/map`);
   await expect(page.getByTestId("map-screen")).toBeVisible();

@@ -7,6 +7,7 @@ import { invitationMail } from "@/lib/mail/templates/invitation";
 import { pageNoticeMail } from "@/lib/mail/templates/page-notice";
 import { signInLinkMail } from "@/lib/mail/templates/sign-in-link";
 import { specReportMail } from "@/lib/mail/templates/spec-report";
+import { creditRequestMail } from "@/lib/mail/templates/credit-request";
 
 const base = {
   pieceTitle: "Sandpiper Tracks",
@@ -155,5 +156,33 @@ describe("the templates", () => {
       '"Sandpiper Tracks" is going in Low Tide Almanac',
     );
     expect(statusChangeMail({ ...base, to: "awaiting-review" })).toBeNull();
+  });
+});
+
+describe("the credit request", () => {
+  const input = {
+    anthologyTitle: "Low Tide Almanac",
+    greeting: "Wren Halloway",
+    pieceTitle: "Heron at the Sluice Gate",
+    creditLine: "Wren Halloway <b>",
+    link: "http://localhost:3000/credits/c1.4.abc",
+    days: 30,
+    again: false,
+  };
+
+  it("shows the line as it will print, the link and how long it lasts, escaped in HTML", () => {
+    const mail = creditRequestMail(input);
+    expect(mail.subject).toBe("Approve your credit in Low Tide Almanac");
+    expect(mail.text).toContain("\n\nWren Halloway <b>\n\n");
+    expect(mail.text).toContain("Check your credit line: http://localhost:3000/credits/c1.4.abc");
+    expect(mail.text).toContain("lasts 30 days");
+    expect(mail.html).toContain("Wren Halloway &#60;b&#62;");
+    expect(mail.html).not.toContain("<b>");
+  });
+
+  it("says why it asks again after a change", () => {
+    const mail = creditRequestMail({ ...input, again: true });
+    expect(mail.subject).toBe("Approve your changed credit in Low Tide Almanac");
+    expect(mail.text).toContain("changed after you approved it");
   });
 });

@@ -3,6 +3,8 @@ import {
   ACTIONS,
   can,
   maySeePiece,
+  maySeeProofNeighbour,
+  pieceIsPublic,
   roleChangeRefusal,
   rolesInvitableBy,
   type Action,
@@ -28,6 +30,7 @@ const TABLE: Record<Action, string> = {
   "print:view": "LEF",
   "finishing:mark-done": "LEF",
   "contributors:private-data": "LE",
+  "credits:manage": "LE",
   "payouts:manage": "L",
   "payouts:view-own": "C",
 };
@@ -99,5 +102,23 @@ describe("changing roles", () => {
     expect(roleChangeRefusal(members, "piet", "finisher")).toBeNull();
     expect(roleChangeRefusal(members, "ada", null)).toBeNull();
     expect(roleChangeRefusal(members, "nobody", "editor")).toBe("not-member");
+  });
+});
+
+describe("proof neighbours", () => {
+  it("counts a piece public once its credit line is approved", () => {
+    expect(pieceIsPublic({ creditApprovedAt: null })).toBe(false);
+    expect(pieceIsPublic({ creditApprovedAt: new Date("2026-11-30T09:00:00Z") })).toBe(true);
+  });
+
+  it("shows a neighbour's artwork only to a contributor sharing the spread, and only when public", () => {
+    const both = { sharesSpreadWithOwnPiece: true, neighbourIsPublic: true };
+    expect(maySeeProofNeighbour("contributor", both)).toBe(true);
+    expect(maySeeProofNeighbour("contributor", { ...both, neighbourIsPublic: false })).toBe(false);
+    expect(maySeeProofNeighbour("contributor", { ...both, sharesSpreadWithOwnPiece: false })).toBe(
+      false,
+    );
+    expect(maySeeProofNeighbour("finisher", both)).toBe(false);
+    expect(maySeeProofNeighbour(null, both)).toBe(false);
   });
 });

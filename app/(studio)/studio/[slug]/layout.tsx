@@ -13,6 +13,7 @@ const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "/my-pieces", label: "My pieces", action: "pieces:view-own" },
   { href: "/map", label: "Page map", action: "map:view" },
   { href: "/print", label: "Print files", action: "print:view" },
+  { href: "/credits", label: "Credits", action: "credits:manage" },
   { href: "/members", label: "People", action: "members:invite" },
 ];
 

@@ -1,6 +1,6 @@
 import { loadMap } from "@/db/queries/page-map";
 import { requireAnthologyAccess } from "@/server/auth/guard";
-import { can } from "@/lib/auth/policy";
+import { can, maySeePiece } from "@/lib/auth/policy";
 import { MapScreen } from "./_components/map-screen";
 
 export const metadata = { title: "Page map" };
@@ -11,6 +11,8 @@ export default async function PageMapPage({ params }: { params: Promise<{ slug: 
   const initial = await loadMap(anthology, {
     canEdit: can(role, "map:edit"),
     mayShowEmail: can(role, "contributors:private-data"),
+    // The artwork previews follow the piece rule: editors see every piece.
+    mayShowArt: maySeePiece(role, false),
   });
   return (
     <div className="flex flex-col gap-4">

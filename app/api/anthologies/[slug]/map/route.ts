@@ -1,6 +1,6 @@
 import { changeMap, loadMap } from "@/db/queries/page-map";
 import { apiRoute, readJson, readQuery, requireApiAccess } from "@/server/api";
-import { can } from "@/lib/auth/policy";
+import { can, maySeePiece } from "@/lib/auth/policy";
 import type { MapChangeAnswer, MapPayload, MapRefusalAnswer } from "@/lib/map-edits/payload";
 import { mapChangeRequestSchema, mapQuerySchema } from "@/lib/validations/page-map";
 
@@ -14,6 +14,8 @@ export const GET = apiRoute(async (request, { params }: Context) => {
     (await loadMap(anthology, {
       canEdit: can(role, "map:edit"),
       mayShowEmail: can(role, "contributors:private-data"),
+      // The artwork previews follow the piece rule: editors see every piece.
+      mayShowArt: maySeePiece(role, false),
       copies: readQuery(request, mapQuerySchema).copies,
     })) satisfies MapPayload,
   );

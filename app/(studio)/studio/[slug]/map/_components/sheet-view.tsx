@@ -2,7 +2,7 @@ import { sheetSides } from "@/lib/map/layout";
 import { slotsByPage } from "@/lib/map/state";
 import type { MapSheetSide, MapState, PassCount } from "@/lib/map/types";
 import { RESERVATION_LABELS } from "@/lib/map-edits/labels";
-import { inkList, type PieceView } from "./view-model";
+import { inkList, pageArt, type PieceView } from "./view-model";
 
 /** The same map as it prints: sheet by sheet, each side's two pages, inks and drum passes, and the creep. */
 export function SheetView({
@@ -39,12 +39,29 @@ export function SheetView({
           {side.side === "front" ? "Front (outside)" : "Back (inside)"}
         </p>
         <div className="flex gap-1">
-          {side.pages.map((page) => (
-            <div key={page} className="flex-1 rounded bg-paper px-2 py-1 text-xs">
-              <span className="font-mono text-ink-faint">p. {page}</span>
-              <p className="font-semibold leading-tight">{pageLabel(page)}</p>
-            </div>
-          ))}
+          {side.pages.map((page) => {
+            const slot = slots[page];
+            const piece = slot?.pieceId != null ? pieces.get(slot.pieceId) : undefined;
+            const art = piece ? pageArt(piece, slot?.piecePageIndex ?? null) : null;
+            return (
+              <div
+                key={page}
+                className="flex min-w-0 flex-1 flex-col gap-1 rounded bg-paper px-2 py-1 text-xs"
+              >
+                <span className="font-mono text-ink-faint">p. {page}</span>
+                {art ? (
+                  <img
+                    src={art.src}
+                    alt={art.alt}
+                    className="h-16 w-full rounded-sm bg-white object-contain"
+                    loading="lazy"
+                    data-testid={`sheet-thumb-${page}`}
+                  />
+                ) : null}
+                <p className="font-semibold leading-tight">{pageLabel(page)}</p>
+              </div>
+            );
+          })}
         </div>
         <p className="text-xs">
           Inks: {count && count.inks.length ? inkList(count.inks) : "none"} ·{" "}

@@ -2,7 +2,7 @@ import { useDraggable, useDroppable } from "@dnd-kit/core";
 import type { MapSlot, RuleMessage } from "@/lib/map/types";
 import { RESERVATION_LABELS } from "@/lib/map-edits/labels";
 import { pageDropId, type DragData } from "./drag";
-import type { PieceView } from "./view-model";
+import { pageArt, type PieceView } from "./view-model";
 
 export type SlotMark = "drop-ok" | "drop-no" | null;
 
@@ -120,6 +120,7 @@ function PlacedChip({
   onSelect: (page: number) => void;
 }) {
   const data: DragData = { pieceId: piece.id, from: "map", index: slot.piecePageIndex ?? 1 };
+  const art = pageArt(piece, slot.piecePageIndex);
   const { attributes, listeners, setNodeRef, isDragging } = useDraggable({
     id: `map-piece-${piece.id}-${slot.page}`,
     data,
@@ -140,8 +141,18 @@ function PlacedChip({
       }}
       aria-roledescription="placed piece"
       data-testid={`placed-${piece.id}-${slot.page}`}
-      className={`rounded bg-teal-light/70 px-1.5 py-1 ${canEdit ? "cursor-grab touch-none" : ""} ${isDragging ? "opacity-40" : ""}`}
+      className={`flex min-h-0 flex-col gap-0.5 rounded bg-teal-light/70 px-1.5 py-1 ${canEdit ? "cursor-grab touch-none" : ""} ${isDragging ? "opacity-40" : ""}`}
     >
+      {art ? (
+        <img
+          src={art.src}
+          alt={art.alt}
+          className="h-12 w-full rounded-sm bg-white object-contain"
+          loading="lazy"
+          draggable={false}
+          data-testid={`slot-thumb-${slot.page}`}
+        />
+      ) : null}
       <p className="line-clamp-2 font-semibold leading-tight">{piece.title}</p>
       <p className="text-[11px] text-ink-soft">
         {piece.length > 1 ? `${slot.piecePageIndex}/${piece.length} · ` : ""}

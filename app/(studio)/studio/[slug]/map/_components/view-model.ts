@@ -1,13 +1,26 @@
 import { pieceLength } from "@/lib/map/state";
 import type { MapPiece, MapState, RuleMessage } from "@/lib/map/types";
 import { applyChange } from "@/lib/map-edits/apply";
-import type { MapPieceCard } from "@/lib/map-edits/payload";
+import type { MapPageArt, MapPieceCard } from "@/lib/map-edits/payload";
 
 export type PieceView = MapPiece & {
   contributorName: string;
   length: number;
   status: MapPieceCard["status"] | null;
+  /** Each page's preview and description; empty when the viewer may not see artwork. */
+  art: MapPageArt[];
 };
+
+/** The preview of one page of a piece (1-based), with alt text from the page's description. */
+export function pageArt(
+  piece: PieceView,
+  pageIndex: number | null,
+): { src: string; alt: string } | null {
+  const art = piece.art.find((a) => a.pageIndex === (pageIndex ?? 1));
+  if (!art?.thumbnailUrl) return null;
+  const which = piece.length > 1 ? `, page ${pageIndex ?? 1} of ${piece.length}` : "";
+  return { src: art.thumbnailUrl, alt: art.altText ?? `Artwork of ${piece.title}${which}` };
+}
 
 /** Pieces by id with who made them, where they are in review and how many pages they take. */
 export function piecesById(state: MapState, cards: MapPieceCard[]): Map<number, PieceView> {
@@ -20,6 +33,7 @@ export function piecesById(state: MapState, cards: MapPieceCard[]): Map<number, 
         contributorName: byId.get(p.id)?.contributorName ?? "A contributor",
         status: byId.get(p.id)?.status ?? null,
         length: pieceLength(p),
+        art: byId.get(p.id)?.art ?? [],
       },
     ]),
   );

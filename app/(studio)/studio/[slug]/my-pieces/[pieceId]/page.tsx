@@ -15,6 +15,7 @@ import {
 import { placedPagesOf } from "@/db/queries/page-map";
 import { requireAnthologyAccess } from "@/server/auth/guard";
 import { formatDateTime } from "@/lib/dates";
+import { findCreditPiece } from "@/db/queries/credits";
 import { pagesInWords } from "@/lib/map/state";
 import { PIECE_KIND_LABELS, PIECE_STATUS_LABELS, type PieceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
@@ -29,7 +30,11 @@ import {
   requiredFilesOf,
   separationsExplanation,
 } from "@/lib/pieces/separations";
+import { loadPieceProof } from "@/server/proofs";
+import { formatDate } from "@/lib/dates";
 import { AltTextEditor } from "./_components/alt-text-editor";
+import { CreditLineEditor } from "./_components/credit-line-editor";
+import { PieceProof } from "./_components/piece-proof";
 import { PageUpload } from "./_components/page-upload";
 import { UnreadableUploads } from "./_components/unreadable-uploads";
 import { UseVersionButton } from "./_components/use-version-button";
@@ -88,6 +93,15 @@ export default async function MyPiecePage({ params }: Props) {
     })),
   );
   const mapPages = await placedPagesOf(anthology, piece.id);
+  const [credit, proof] = await Promise.all([
+    findCreditPiece(piece.id),
+    mapPages.length > 0 ? loadPieceProof(anthology, piece.id) : Promise.resolve([]),
+  ]);
+  const creditStatus = credit?.creditApprovedAt
+    ? `Approved on ${formatDate(credit.creditApprovedAt)}; it prints as shown.`
+    : credit?.creditRequestedAt
+      ? `Waiting for your approval: we e-mailed you a link on ${formatDate(credit.creditRequestedAt)}.`
+      : "Not approved yet. The editors will e-mail you a link to approve it before printing.";
 
   return (
     <div className="flex flex-col gap-8" data-testid="my-piece-page" data-piece-id={piece.id}>
@@ -110,7 +124,7 @@ export default async function MyPiecePage({ params }: Props) {
         </div>
         <p className="text-sm text-ink-soft">
           {PIECE_KIND_LABELS[piece.kind]} · {piece.pageCount} page{piece.pageCount === 1 ? "" : "s"}{" "}
-          · inks: {piece.inks.join(", ") || "none named"} · credit: “{piece.creditLine}”
+          · inks: {piece.inks.join(", ") || "none named"}
         </p>
         {mapPages.length > 0 ? (
           <p className="text-sm font-semibold" data-testid="piece-map-pages">
@@ -155,6 +169,14 @@ export default async function MyPiecePage({ params }: Props) {
           {separationsExplanation(piece.inks)}
         </Notice>
       ) : null}
+      {piece.status === "accepted" ? <PieceProof spreads={proof} /> : null}
+
+      <CreditLineEditor
+        pieceId={piece.id}
+        initial={piece.creditLine}
+        status={creditStatus}
+        editable={piece.status !== "withdrawn" && piece.status !== "declined"}
+      />
 
       <div className="flex flex-col gap-10">
         {pages.map((page) => (

@@ -1,6 +1,6 @@
 import { loadMap, readMapState } from "@/db/queries/page-map";
 import { apiRoute, readJson, requireApiAccess } from "@/server/api";
-import { can } from "@/lib/auth/policy";
+import { can, maySeePiece } from "@/lib/auth/policy";
 import { checkMap } from "@/lib/map/check";
 import { countPasses } from "@/lib/map/passes";
 import { proposePlacement } from "@/lib/map/propose";
@@ -23,6 +23,8 @@ export const POST = apiRoute(async (request, { params }: { params: Promise<{ slu
       map: await loadMap(anthology, {
         canEdit: true,
         mayShowEmail: can(role, "contributors:private-data"),
+        // The artwork previews follow the piece rule: editors see every piece.
+        mayShowArt: maySeePiece(role, false),
         copies,
       }),
     };
