@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { connection } from "next/server";
 import type { ReactNode } from "react";
 import { SiteHeader } from "@/components/site-header";
 import { displayFont, monoFont, sansFont } from "./fonts";
@@ -10,7 +11,10 @@ export const metadata: Metadata = {
     "From open call to contributor payouts: Quireline runs collaborative zines and small-press anthologies.",
 };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  // Every page is rendered per request: its scripts carry that request's CSP nonce (proxy.ts),
+  // which a page prerendered at build time could not.
+  await connection();
   return (
     <html lang="en" className={`${displayFont.variable} ${sansFont.variable} ${monoFont.variable}`}>
       <body className="min-h-screen">
