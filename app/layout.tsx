@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { connection } from "next/server";
 import type { ReactNode } from "react";
 import { SiteHeader } from "@/components/site-header";
+import { ZodSetup } from "@/components/zod-setup";
 import { displayFont, monoFont, sansFont } from "./fonts";
 import "./globals.css";
 
@@ -18,6 +19,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   return (
     <html lang="en" className={`${displayFont.variable} ${sansFont.variable} ${monoFont.variable}`}>
       <body className="min-h-screen">
+        <ZodSetup />
         <SiteHeader />
         <main className="mx-auto max-w-6xl px-5 py-8">{children}</main>
         <footer className="mx-auto max-w-6xl px-5 pb-10 pt-6 text-xs text-ink-faint">
