@@ -1,6 +1,6 @@
 import { DrizzleAdapter } from "@auth/drizzle-adapter";
 import { eq } from "drizzle-orm";
-import NextAuth, { type DefaultSession } from "next-auth";
+import NextAuth, { CredentialsSignin, type DefaultSession } from "next-auth";
 import type {} from "next-auth/jwt";
 import Credentials from "next-auth/providers/credentials";
 import Nodemailer from "next-auth/providers/nodemailer";
@@ -10,6 +10,7 @@ import { verifyPassword } from "@/server/auth/password";
 import { env } from "@/lib/env";
 import { signInLinkMail } from "@/lib/mail/templates/sign-in-link";
 import { sendMail } from "@/server/mail";
+import { addressOf, consume, firstRefusal, reset } from "@/server/rate-limit";
 import { signInSchema } from "@/lib/validations/account";
 
 declare module "next-auth" {
@@ -24,6 +25,11 @@ declare module "next-auth/jwt" {
     /** The account's session version when the token was issued; see `sessionVersion` in db/schema.ts. */
     sv?: number;
   }
+}
+
+/** A sign-in refused because the account or the address has used up its tries. */
+export class SignInLimited extends CredentialsSignin {
+  code = "rate_limited";
 }
 
 /** How long a session lasts without use; every request within it extends it by as much. */
@@ -48,16 +54,28 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
   providers: [
     Credentials({
       credentials: { email: {}, password: {} },
-      async authorize(raw) {
+      async authorize(raw, request) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) return null;
+        // Failures count per account and per address (lib/rate-limits.ts); over either, even the
+        // right password waits, so guessing cannot go on by luck.
+        const keys = [
+          ["signInAccount", parsed.data.email],
+          ["signInAddress", addressOf(request.headers)],
+        ] as const;
+        if (!(await firstRefusal(keys)).ok) throw new SignInLimited();
         const [user] = await db
           .select()
           .from(schema.users)
           .where(eq(schema.users.email, parsed.data.email))
           .limit(1);
-        if (!user?.passwordHash) return null;
-        if (!(await verifyPassword(user.passwordHash, parsed.data.password))) return null;
+        const matches =
+          !!user?.passwordHash && (await verifyPassword(user.passwordHash, parsed.data.password));
+        if (!user || !matches) {
+          await firstRefusal(keys, consume);
+          return null;
+        }
+        await reset("signInAccount", parsed.data.email);
         return { id: user.id, name: user.name, email: user.email };
       },
     }),
@@ -65,7 +83,15 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
       server: { host: env().SMTP_HOST, port: env().SMTP_PORT },
       from: env().MAIL_FROM,
       maxAge: 60 * 60,
-      async sendVerificationRequest({ identifier, url }) {
+      async sendVerificationRequest({ identifier, url, request }) {
+        const limited = await firstRefusal(
+          [
+            ["emailLinkAccount", identifier],
+            ["emailLinkAddress", addressOf(request.headers)],
+          ],
+          consume,
+        );
+        if (!limited.ok) throw new Error(limited.message);
         await sendMail({ to: identifier, ...signInLinkMail(url) });
       },
     }),

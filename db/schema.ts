@@ -457,6 +457,18 @@ export const printOutputs = mysqlTable(
   (t) => [index("print_output_anthology").on(t.anthologyId, t.kind)],
 );
 
+/* ---------- Rate limits ---------- */
+
+/**
+ * Counts kept by rate-limiter-flexible's MySQL store (server/rate-limit.ts): one row per limited
+ * key ("signInAccount:someone@example.test"), the tries used and when the window ends (ms).
+ */
+export const rateLimits = mysqlTable("rate_limit", {
+  key: varchar("key", { length: 255 }).primaryKey(),
+  points: int("points").notNull().default(0),
+  expire: bigint("expire", { mode: "number", unsigned: true }),
+});
+
 /* ---------- Mail ---------- */
 
 export const emailLog = mysqlTable(

@@ -76,7 +76,7 @@ function which(name) {
   return null;
 }
 
-function bin(name) {
+export function bin(name) {
   const file = which(name);
   if (!file) throw new MariaDbError(`${name} not found although MariaDB is installed`);
   return file;

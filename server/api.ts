@@ -1,4 +1,5 @@
 import "server-only";
+import { log, pathOf } from "@/server/log";
 import type { z } from "zod";
 import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
 import { findPieceAnthologySlug } from "@/db/queries/review";
@@ -214,21 +215,58 @@ type Handler<C> = (request: Request, context: C) => Promise<Response>;
  */
 export function apiRoute<C>(handler: Handler<C>): Handler<C> {
   return async (request, context) => {
-    try {
-      refuseCrossSite(request);
-      return await handler(request, context);
-    } catch (error) {
-      if (error instanceof HttpError) {
-        return Response.json({ error: error.message, ...error.extra }, { status: error.status });
-      }
-      if (error instanceof Refusal) {
-        return Response.json({ error: error.message }, { status: error.status });
-      }
-      console.error("route handler failed", error);
-      return Response.json(
-        { error: "Something went wrong on our side; nothing was saved." },
-        { status: 500 },
-      );
-    }
+    const started = performance.now();
+    const response = await answer(handler, request, context);
+    log.info(
+      {
+        kind: "request",
+        method: request.method,
+        path: pathOf(request.url),
+        status: response.status,
+        ms: Math.round(performance.now() - started),
+      },
+      "request",
+    );
+    return response;
   };
+}
+
+/**
+ * What a failure's log line says: a driver error's code only (its message can quote the values
+ * of the statement, people's text among them), else the error's name and message.
+ */
+export function errorSummary(error: unknown): string {
+  if (!(error instanceof Error)) return "unknown";
+  const code = (error as { code?: unknown }).code;
+  if (typeof code === "string" && "sqlMessage" in error) return `${error.name} ${code}`;
+  return `${error.name}: ${error.message}`.slice(0, 300);
+}
+
+async function answer<C>(handler: Handler<C>, request: Request, context: C): Promise<Response> {
+  try {
+    refuseCrossSite(request);
+    return await handler(request, context);
+  } catch (error) {
+    if (error instanceof HttpError) {
+      return Response.json({ error: error.message, ...error.extra }, { status: error.status });
+    }
+    if (error instanceof Refusal) {
+      return Response.json({ error: error.message }, { status: error.status });
+    }
+    // The error's name and message only: a stack or a driver's error object can carry SQL
+    // parameters (people's text) with it.
+    log.error(
+      {
+        kind: "request-failed",
+        method: request.method,
+        path: pathOf(request.url),
+        error: errorSummary(error),
+      },
+      "route handler failed",
+    );
+    return Response.json(
+      { error: "Something went wrong on our side; nothing was saved." },
+      { status: 500 },
+    );
+  }
 }

@@ -8,6 +8,7 @@ import { PDFDocument, rgb } from "pdf-lib";
 import sharp from "sharp";
 import { demoAccount, uniqueEmail } from "../helpers/demo";
 import { waitForMessage } from "../helpers/outbox";
+import { recordCspViolations } from "./csp";
 import { halfLetterAnthology, signInWithPassword } from "./helpers";
 
 let workDir: string;
@@ -107,6 +108,8 @@ test("a contributor signs up from an open call, uploads a page without bleed, fi
 
   const context = await browser.newContext();
   const page = await context.newPage();
+  // The uploads go to the upload host: the page's CSP must let them through.
+  const violations = await recordCspViolations(page);
   await page.goto(`/calls/${slug}`);
   await page.getByTestId("send-work").click();
   await page.waitForURL(/\/sign-in\?callbackUrl=/, { timeout: 45_000 });
@@ -177,6 +180,7 @@ test("a contributor signs up from an open call, uploads a page without bleed, fi
   await page.goto(`/studio/${slug}/my-pieces`);
   await expect(page.getByTestId("my-piece")).toHaveCount(1);
   await expect(page.getByTestId("my-piece")).toContainText("1 of 1 file uploaded");
+  expect(violations, violations.join("\n")).toEqual([]);
   await context.close();
 });
 

@@ -2,11 +2,13 @@
 
 import { eq } from "drizzle-orm";
 import { AuthError } from "next-auth";
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { signIn } from "@/auth";
 import { db, schema } from "@/db";
 import { fieldErrors } from "@/server/api";
 import { hashPassword } from "@/server/auth/password";
+import { addressOf, consume, firstRefusal } from "@/server/rate-limit";
 import { emailLinkSchema, signInSchema, signUpSchema } from "@/lib/validations/account";
 
 export type FormResult = { error?: string; fields?: Record<string, string[]> } | undefined;
@@ -24,6 +26,8 @@ export async function signUpAction(input: unknown, callbackUrl?: string): Promis
   const parsed = signUpSchema.safeParse(input);
   if (!parsed.success) return { fields: fieldErrors(parsed.error) };
   const { name, email, password } = parsed.data;
+  const limited = await consume("signUpAddress", addressOf(await headers()));
+  if (!limited.ok) return { error: limited.message };
   const [existing] = await db
     .select({ id: schema.users.id })
     .from(schema.users)
@@ -60,6 +64,11 @@ export async function passwordSignInAction(
 ): Promise<FormResult> {
   const parsed = signInSchema.safeParse(input);
   if (!parsed.success) return { fields: fieldErrors(parsed.error) };
+  const limited = await firstRefusal([
+    ["signInAccount", parsed.data.email],
+    ["signInAddress", addressOf(await headers())],
+  ]);
+  if (!limited.ok) return { error: limited.message };
   try {
     await signIn("credentials", { ...parsed.data, redirect: false });
   } catch (error) {
@@ -73,6 +82,11 @@ export async function passwordSignInAction(
 export async function emailLinkAction(input: unknown, callbackUrl?: string): Promise<FormResult> {
   const parsed = emailLinkSchema.safeParse(input);
   if (!parsed.success) return { fields: fieldErrors(parsed.error) };
+  const limited = await firstRefusal([
+    ["emailLinkAccount", parsed.data.email],
+    ["emailLinkAddress", addressOf(await headers())],
+  ]);
+  if (!limited.ok) return { error: limited.message };
   try {
     await signIn("nodemailer", {
       email: parsed.data.email,

@@ -1,14 +1,18 @@
-import { sql } from "drizzle-orm";
-import { db } from "@/db";
+import { healthReport, healthStatusCode } from "@/lib/health";
+import { probeAll } from "@/server/health";
 
+// Always measured now, never cached.
 export const dynamic = "force-dynamic";
 
-/** Liveness for the launcher: answers 200 once the app can reach its database. */
+/**
+ * GET /api/health: each service the app needs (the database, the upload host, the mail server)
+ * with its state; 200 when all are up, 503 naming the ones that are down. No sign-in needed and
+ * nothing private in it: states, timings and plain reasons only.
+ */
 export async function GET() {
-  try {
-    await db.execute(sql`select 1`);
-    return Response.json({ ok: true });
-  } catch {
-    return Response.json({ ok: false, error: "database unreachable" }, { status: 503 });
-  }
+  const report = healthReport(await probeAll());
+  return Response.json(report, {
+    status: healthStatusCode(report),
+    headers: { "Cache-Control": "no-store" },
+  });
 }

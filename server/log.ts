@@ -1,0 +1,45 @@
+import "server-only";
+import pino from "pino";
+
+/**
+ * The app's structured log: one JSON object per line on stdout (pino). Request lines carry the
+ * method, the path without its query, the status, the time taken and the signed-in person's id;
+ * never a body, a header value, a query string, an address, a password, a token or file bytes.
+ * Fields that might carry those anyway are redacted by name.
+ */
+export const log = pino({
+  level: process.env.LOG_LEVEL ?? (process.env.NODE_ENV === "test" ? "warn" : "info"),
+  base: { app: "quireline" },
+  redact: {
+    paths: [
+      "password",
+      "*.password",
+      "passwordHash",
+      "*.passwordHash",
+      "token",
+      "*.token",
+      "secret",
+      "*.secret",
+      "authorization",
+      "*.authorization",
+      "cookie",
+      "*.cookie",
+      "email",
+      "*.email",
+      "body",
+      "*.body",
+      "bytes",
+      "*.bytes",
+    ],
+    censor: "[redacted]",
+  },
+});
+
+/** The path of a request URL without its query string (which can hold tokens). */
+export function pathOf(url: string): string {
+  try {
+    return new URL(url).pathname;
+  } catch {
+    return "?";
+  }
+}
