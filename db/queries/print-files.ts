@@ -1,7 +1,8 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, schema } from "@/db";
-import type { PrintOutputKind } from "@/lib/domain";
+import type { PrintMethod, PrintOutputKind } from "@/lib/domain";
+import { pieceVerdictOverFiles, requiredFilesOf } from "@/lib/pieces/separations";
 import type { PreflightPiece } from "@/lib/print/preflight";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
@@ -12,6 +13,7 @@ const p = schema.pieces;
 const pp = schema.piecePages;
 const fv = schema.fileVersions;
 const s = schema.pageSlots;
+const ps = schema.pageSeparations;
 
 export type PrintOutput = typeof o.$inferSelect;
 
@@ -178,58 +180,107 @@ export interface PlacedFile {
 export interface PieceForPrint {
   id: number;
   title: string;
+  inks: string[];
   creditLine: string;
   creditApprovedAt: Date | null;
-  pages: { pageIndex: number; file: PlacedFile | null; verdict: string | null }[];
+  pages: {
+    pageIndex: number;
+    /** The page's one file (for a piece sent as masters: a colour guide, not printed). */
+    file: PlacedFile | null;
+    /** Worst verdict over the files the page needs: its one file, or one master per ink. */
+    verdict: string | null;
+    /** The current master of each ink, for pieces sent as one file per ink. */
+    separations: Record<string, PlacedFile>;
+  }[];
 }
 
-/** The pieces on the map with their pages' current files and verdicts. */
-export async function piecesOnMap(anthologyId: number): Promise<PieceForPrint[]> {
+/** The pieces on the map with their pages' current files, masters and verdicts. */
+export async function piecesOnMap(anthology: {
+  id: number;
+  printMethod: PrintMethod;
+}): Promise<PieceForPrint[]> {
   const onMap = db
     .select({ id: s.pieceId })
     .from(s)
-    .where(and(eq(s.anthologyId, anthologyId), sql`${s.pieceId} IS NOT NULL`));
+    .where(and(eq(s.anthologyId, anthology.id), sql`${s.pieceId} IS NOT NULL`));
+  const file = {
+    versionId: fv.id,
+    storageKey: fv.storageKey,
+    fileName: fv.fileName,
+    mimeType: fv.mimeType,
+    verdict: fv.verdict,
+  };
   const rows = await db
     .select({
       id: p.id,
       title: p.title,
+      inks: p.inks,
       creditLine: p.creditLine,
       creditApprovedAt: p.creditApprovedAt,
+      pageId: pp.id,
       pageIndex: pp.pageIndex,
-      versionId: fv.id,
-      storageKey: fv.storageKey,
-      fileName: fv.fileName,
-      mimeType: fv.mimeType,
-      verdict: fv.verdict,
+      ...file,
     })
     .from(p)
     .innerJoin(pp, eq(pp.pieceId, p.id))
     .leftJoin(fv, eq(fv.id, pp.currentVersionId))
-    .where(and(eq(p.anthologyId, anthologyId), inArray(p.id, onMap)))
+    .where(and(eq(p.anthologyId, anthology.id), inArray(p.id, onMap)))
     .orderBy(asc(p.id), asc(pp.pageIndex));
+  const masters = rows.length
+    ? await db
+        .select({ pageId: ps.piecePageId, ink: ps.ink, ...file })
+        .from(ps)
+        .innerJoin(fv, eq(fv.id, ps.currentVersionId))
+        .where(
+          inArray(
+            ps.piecePageId,
+            rows.map((r) => r.pageId),
+          ),
+        )
+    : [];
+  const placedFile = (
+    pieceId: number,
+    pageIndex: number,
+    r: {
+      versionId: number | null;
+      storageKey: string | null;
+      fileName: string | null;
+      mimeType: string | null;
+    },
+  ): PlacedFile | null =>
+    r.versionId === null
+      ? null
+      : {
+          pieceId,
+          pageIndex,
+          versionId: r.versionId,
+          storageKey: r.storageKey!,
+          fileName: r.fileName!,
+          mimeType: r.mimeType!,
+        };
   const byId = new Map<number, PieceForPrint>();
   for (const r of rows) {
+    const inks = Array.isArray(r.inks) ? r.inks : [];
     const piece = byId.get(r.id) ?? {
       id: r.id,
       title: r.title,
+      inks,
       creditLine: r.creditLine,
       creditApprovedAt: r.creditApprovedAt,
       pages: [],
     };
+    const own = masters.filter((m) => m.pageId === r.pageId);
+    const required = requiredFilesOf(anthology, { inks });
     piece.pages.push({
       pageIndex: r.pageIndex,
-      verdict: r.versionId === null ? null : r.verdict,
-      file:
-        r.versionId === null
-          ? null
-          : {
-              pieceId: r.id,
-              pageIndex: r.pageIndex,
-              versionId: r.versionId,
-              storageKey: r.storageKey!,
-              fileName: r.fileName!,
-              mimeType: r.mimeType!,
-            },
+      file: placedFile(r.id, r.pageIndex, r),
+      verdict: pieceVerdictOverFiles(required, [
+        {
+          composite: r.versionId === null ? null : r.verdict,
+          separations: Object.fromEntries(own.map((m) => [m.ink, m.verdict])),
+        },
+      ]),
+      separations: Object.fromEntries(own.map((m) => [m.ink, placedFile(r.id, r.pageIndex, m)!])),
     });
     byId.set(r.id, piece);
   }
@@ -245,7 +296,11 @@ export function preflightPieces(pieces: PieceForPrint[]): PreflightPiece[] {
     pages: x.pages.map((pg) => ({
       pageIndex: pg.pageIndex,
       verdict: pg.verdict,
-      fileName: pg.file?.fileName ?? null,
+      fileName: Object.keys(pg.separations).length
+        ? Object.values(pg.separations)
+            .map((f) => f.fileName)
+            .join(", ")
+        : (pg.file?.fileName ?? null),
     })),
   }));
 }

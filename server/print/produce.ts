@@ -21,12 +21,14 @@ import {
 import { env } from "@/lib/env";
 import { allSides, readerSpreads, sheetSides } from "@/lib/map/layout";
 import { bookletCreepMm } from "@/lib/print/creep";
+import { fileForInk, mastersFor } from "@/lib/print/masters";
 import { imposeBooklet } from "@/lib/print/pdf/impose";
 import { sheetMarksFor } from "@/lib/print/press-sheet";
 import { readerProof } from "@/lib/print/pdf/proof";
 import type { ArtBytes, PageContent, PlacedPage, ProducedPdf } from "@/lib/print/pdf/types";
 import type { MapState } from "@/lib/map/types";
 import { deleteStoredFiles, readStoredFile, storedFileUrl, storeFile } from "@/server/uploads";
+import { reservedTextPagesFor } from "@/server/credits";
 import { artBytesOf } from "./art";
 
 /** A failure the editor reads as it is. */
@@ -56,44 +58,68 @@ function maxPixels(): number {
 
 const message = (error: unknown) => (error instanceof Error ? error.message : String(error));
 
-/** What goes on each reader page, and which file versions the output uses. */
+/**
+ * What goes on each reader page, and which file versions the output uses. With `ink`, the page
+ * of a duplicator master for that ink: the piece's page only when the piece prints in it (its
+ * one file for a one-ink piece, that ink's master otherwise), blank elsewhere; pages set in type
+ * (contents, credits, colophon) go on the first press ink's masters.
+ */
 function pageContents(
+  anthology: Anthology,
   state: MapState,
   pieces: PieceForPrint[],
   laidOutPages: number,
   loaded: Placing,
+  typeset: Map<number, PageContent>,
+  ink: string | null,
 ) {
   const byId = new Map(pieces.map((p) => [p.id, p]));
   const used: number[] = [];
   const contents = new Map<number, PageContent>();
   const contentsLines = contentsPage(state, byId);
+  const typeInk = state.pressInks[0] ?? null;
   for (let page = 1; page <= laidOutPages; page++) {
     const slot = state.slots[page - 1];
     if (!slot || slot.pieceId === null) {
-      // Padding, a page kept blank, and the kept pages whose content is set elsewhere print blank;
-      // the contents page is set in type from the map.
-      contents.set(
-        page,
+      // Padding and pages kept blank print blank; the contents page is set from the map, the
+      // credits and colophon from the approved credit lines.
+      const text =
         slot?.reservation === "contents" && contentsLines.length
-          ? { kind: "text", heading: "Contents", lines: contentsLines }
-          : { kind: "blank" },
-      );
+          ? ({ kind: "text", heading: "Contents", lines: contentsLines } as const)
+          : typeset.get(page);
+      contents.set(page, text && (ink === null || ink === typeInk) ? text : { kind: "blank" });
       continue;
     }
     const piece = byId.get(slot.pieceId);
     const index = slot.piecePageIndex ?? 1;
-    const file = piece?.pages.find((pg) => pg.pageIndex === index)?.file ?? null;
     const title = piece?.title ?? `piece ${slot.pieceId}`;
+    const pg = piece?.pages.find((x) => x.pageIndex === index);
+    let file: PlacedFile | null;
+    let what = "file";
+    if (ink === null) {
+      // A composite or a proof: the page's one file, else its first master in press order.
+      const firstInk = (piece?.inks ?? []).find((i) => pg?.separations[i]);
+      file = pg?.file ?? (firstInk ? pg!.separations[firstInk]! : null);
+    } else {
+      const need = piece ? fileForInk(anthology, piece, ink) : null;
+      if (!need) {
+        contents.set(page, { kind: "blank" });
+        continue;
+      }
+      file = need.kind === "composite" ? (pg?.file ?? null) : (pg?.separations[ink] ?? null);
+      if (need.kind === "separation") what = `${ink} master`;
+    }
     if (!file)
       throw new ProduceError(
-        `page ${page}: “${title}” has no file for its page ${index}; ask for one, or take it off the map`,
+        `page ${page}: “${title}” has no ${what} for its page ${index}; ask for one, or take it off the map`,
       );
     used.push(file.versionId);
+    const chosen = file;
     contents.set(page, {
       kind: "art",
       title,
       credit: piece?.creditLine ?? null,
-      load: () => loadArt(page, title, file, loaded),
+      load: () => loadArt(page, title, chosen, loaded),
     });
   }
   return { contents, used };
@@ -170,8 +196,19 @@ export async function produceOutput(
     const { version, state } = await readMapState(anthology);
     if (version !== output.mapVersion) throw new ProduceError(MAP_CHANGED);
     const plan = sheetSides(state.pageCount, state.binding);
-    const pieces = await piecesOnMap(anthology.id);
-    const { contents, used } = pageContents(state, pieces, plan.laidOutPages, loaded);
+    const pieces = await piecesOnMap(anthology);
+    const typeset = new Map(
+      (await reservedTextPagesFor(anthology)).pages.map((t) => [t.page, t.content] as const),
+    );
+    const { contents, used } = pageContents(
+      anthology,
+      state,
+      pieces,
+      plan.laidOutPages,
+      loaded,
+      typeset,
+      output.kind === "master" ? output.ink : null,
+    );
     const placed = (page: number): PlacedPage => ({
       page,
       content: contents.get(page) ?? { kind: "blank" },
@@ -190,7 +227,23 @@ export async function produceOutput(
 
     let pdf: ProducedPdf;
     try {
-      if (output.kind === "print") {
+      if (output.kind === "print" || output.kind === "master") {
+        const ink = output.kind === "master" ? output.ink : null;
+        let sides = allSides(plan);
+        if (ink !== null) {
+          // One master per side that carries this ink (as the sheet view counts the passes),
+          // and the sides of pages set in type on the first ink's masters.
+          const keys = new Set(
+            mastersFor(state, plan)
+              .find((m) => m.ink === ink)
+              ?.sides.map((x) => x.key) ?? [],
+          );
+          sides = sides.filter(
+            (side) =>
+              keys.has(side.key) || side.pages.some((pg) => contents.get(pg)?.kind === "text"),
+          );
+          if (sides.length === 0) throw new ProduceError(`no page of the map prints in ${ink}`);
+        }
         const coverNote =
           anthology.coverStock === "separate"
             ? `cover stock${anthology.coverPaperGsm ? ` ${anthology.coverPaperGsm} gsm` : ""}`
@@ -209,7 +262,7 @@ export async function produceOutput(
           sheet,
           // Sheet 1 (the outermost, which carries the covers) prints first; on a separate
           // cover stock its sides say so in the slug line.
-          sides: allSides(plan).map((side) => ({
+          sides: sides.map((side) => ({
             sheet: side.sheet,
             side: side.side,
             pages: side.pages.map(placed),
@@ -219,7 +272,7 @@ export async function produceOutput(
             state.binding === "saddle-stitch"
               ? bookletCreepMm(plan.sheets.length, anthology)
               : plan.sheets.map(() => 0),
-          ink: null,
+          ink,
         });
       } else if (output.kind === "proof") {
         pdf = await readerProof({

@@ -1,4 +1,5 @@
 import "server-only";
+import { mastersFor } from "@/lib/print/masters";
 /**
  * What the print-file routes call: the screen's view (preflight, sheets, outputs) and a request
  * to produce, which refuses while the preflight has blockers, checks the sheet, writes the rows
@@ -56,7 +57,7 @@ export function outputView(row: PrintOutput): PrintOutputView {
 
 async function preflightOf(anthology: Anthology) {
   const { version, state } = await readMapState(anthology);
-  const pieces = await piecesOnMap(anthology.id);
+  const pieces = await piecesOnMap(anthology);
   return {
     version,
     state,
@@ -100,7 +101,7 @@ export class PreflightBlocked extends Error {
   }
 }
 
-/** Queues the composite print file and the reader proof; see the module comment. */
+/** Queues the print files (a composite, or a duplicator's masters per ink) and the reader proof. */
 export async function requestPrintFiles(
   anthology: Anthology,
   user: SessionUser,
@@ -111,19 +112,27 @@ export async function requestPrintFiles(
   const resolved = resolveSheet(layoutOf(anthology, state.pageCount), sheetRequest);
   if (!resolved.ok)
     throw new HttpError(400, resolved.message, { fields: { sheet: [resolved.message] } });
-  const pages = sheetSides(state.pageCount, state.binding).laidOutPages;
+  const plan = sheetSides(state.pageCount, state.binding);
+  const pages = plan.laidOutPages;
+  const sheet = {
+    name: resolved.sheet.name.slice(0, 40),
+    widthMm: resolved.sheet.widthMm,
+    heightMm: resolved.sheet.heightMm,
+  };
+  // A stencil duplicator prints one ink per drum pass: one PDF of masters per ink, each side
+  // that carries the ink a master (lib/print/masters.ts). Other presses take one composite.
+  const printFiles: NewOutput[] =
+    anthology.printMethod === "duplicator"
+      ? mastersFor(state, plan).map((m) => ({
+          kind: "master" as const,
+          ink: m.ink.slice(0, 40),
+          mapVersion: version,
+          sheet,
+          pagesTotal: 2 * m.sides.length,
+        }))
+      : [{ kind: "print", ink: null, mapVersion: version, sheet, pagesTotal: pages }];
   const wanted: NewOutput[] = [
-    {
-      kind: "print",
-      ink: null,
-      mapVersion: version,
-      sheet: {
-        name: resolved.sheet.name.slice(0, 40),
-        widthMm: resolved.sheet.widthMm,
-        heightMm: resolved.sheet.heightMm,
-      },
-      pagesTotal: pages,
-    },
+    ...printFiles,
     { kind: "proof", ink: null, mapVersion: version, sheet: null, pagesTotal: pages },
   ];
   const ids = await createOutputs(anthology.id, user.id, wanted);

@@ -157,9 +157,16 @@ beforeAll(async () => {
   anthologyIds.push(anthology.id);
   await db
     .update(schema.anthologies)
-    .set({ minPpi: 72, coverStock: "separate", coverPaperGsm: 216 })
+    // A laser press takes one composite print file; the duplicator's masters are tested below.
+    .set({ minPpi: 72, coverStock: "separate", coverPaperGsm: 216, printMethod: "laser-black" })
     .where(eq(schema.anthologies.id, anthology.id));
-  anthology = { ...anthology, minPpi: 72, coverStock: "separate", coverPaperGsm: 216 };
+  anthology = {
+    ...anthology,
+    minPpi: 72,
+    coverStock: "separate",
+    coverPaperGsm: 216,
+    printMethod: "laser-black",
+  };
 
   pieceIds.heron = await makePiece(anthology.id, contributor.id, { title: "What the Heron Kept" });
   pieceIds.gull = await makePiece(anthology.id, contributor.id, { title: "Gull Weather" });
@@ -396,4 +403,99 @@ describe("producing print files", () => {
     await upload(pieceIds.heron!, 1, await grey(100).png().toBuffer(), "heron-2.png", "image/png");
     expect((await findOutput(fresh.id))!.staleAt).toBeInstanceOf(Date);
   }, 120_000);
+});
+
+describe("masters for a two-ink duplicator booklet", () => {
+  it("makes one PDF per ink with one master per side that carries the ink, as the passes count", async () => {
+    const dup = await makeAnthologyWithCall([
+      { person: lead, role: "lead" },
+      { person: contributor, role: "contributor" },
+    ]);
+    anthologyIds.push(dup.id);
+    await db
+      .update(schema.anthologies)
+      .set({ minPpi: 72, printMethod: "duplicator", inks: ["black", "teal"], inksPerPass: 1 })
+      .where(eq(schema.anthologies.id, dup.id));
+    const mono = await makePiece(dup.id, contributor.id, { title: "Mud Script" });
+    const duo = await makePiece(dup.id, contributor.id, {
+      title: "Teal Ledger",
+      inks: ["black", "teal"],
+    });
+    await upload(mono, 1, await grey(80).png().toBuffer(), "mud.png", "image/png");
+    for (const ink of ["black", "teal"]) {
+      const bytes = await grey(ink === "black" ? 40 : 160)
+        .png()
+        .toBuffer();
+      const file = await storeFile(bytes, `ledger-${ink}.png`, "image/png");
+      const result = await ingestUpload(
+        {
+          pieceId: duo,
+          pageIndex: 1,
+          ink,
+          expectedRevision: null,
+          uploadedBy: contributor.id,
+          file,
+        },
+        { notify: false, enforceWindow: false, bytes },
+      );
+      expect(result.current).toBe(true);
+    }
+    await db
+      .update(schema.pieces)
+      .set({ status: "accepted", creditApprovedAt: new Date() })
+      .where(inArray(schema.pieces.id, [mono, duo]));
+    // Eight pages: Mud Script (black) on 2, Teal Ledger (black + teal) on 6; the rest blank.
+    // Saddle stitch of 8 (REFERENCE.md §6.3): sheet 1 back holds 2|7, sheet 2 front holds 6|3.
+    await db.insert(schema.pageSlots).values(
+      Array.from({ length: 8 }, (_, i) => {
+        const piece = i + 1 === 2 ? mono : i + 1 === 6 ? duo : null;
+        return {
+          anthologyId: dup.id,
+          pageNumber: i + 1,
+          reservation: piece ? null : ("blank" as const),
+          pieceId: piece,
+          piecePageIndex: piece ? 1 : null,
+          locked: false,
+        };
+      }),
+    );
+
+    as(lead);
+    const res = await post(dup.slug, { sheet: "tabloid" });
+    expect(res.status).toBe(202);
+    const { outputs } = (await res.json()) as {
+      outputs: { id: number; kind: string; ink: string | null }[];
+    };
+    expect(outputs.map((o) => `${o.kind}:${o.ink ?? ""}`).sort()).toEqual([
+      "master:black",
+      "master:teal",
+      "proof:",
+    ]);
+    const pages: Record<string, number> = {};
+    for (const o of outputs.filter((x) => x.kind === "master")) {
+      const row = await settled(o.id);
+      expect(row.error).toBeNull();
+      expect(row.state).toBe("done");
+      const bytes = new Uint8Array(await (await download(o.id)).arrayBuffer());
+      pages[o.ink!] = pdfPages(bytes, `master-${o.ink}.pdf`);
+      // The slug line names the ink of every master.
+      const file = path.join(tmp, `master-${o.ink}.pdf`);
+      const text = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
+      expect(text).toContain(o.ink!);
+    }
+    // Black is on sheet 1 back (page 2) and sheet 2 front (page 6); teal only on sheet 2 front.
+    expect(pages).toEqual({ black: 2, teal: 1 });
+    const proof = await settled(outputs.find((o) => o.kind === "proof")!.id);
+    expect(proof.state).toBe("done");
+
+    // The passes the map counts for one copy are exactly the masters made.
+    const { readMapState } = await import("@/db/queries/page-map");
+    const { countPasses } = await import("@/lib/map/passes");
+    const [row] = await db
+      .select()
+      .from(schema.anthologies)
+      .where(eq(schema.anthologies.id, dup.id));
+    const { state } = await readMapState(row!);
+    expect(countPasses(state, 1).passesPerCopy).toBe(pages.black! + pages.teal!);
+  }, 180_000);
 });
