@@ -1,5 +1,5 @@
 import "server-only";
-import { log, pathOf } from "@/server/log";
+import { errorSummary, log, pathOf } from "@/server/log";
 import type { z } from "zod";
 import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
 import { findPieceAnthologySlug } from "@/db/queries/review";
@@ -229,17 +229,6 @@ export function apiRoute<C>(handler: Handler<C>): Handler<C> {
     );
     return response;
   };
-}
-
-/**
- * What a failure's log line says: a driver error's code only (its message can quote the values
- * of the statement, people's text among them), else the error's name and message.
- */
-export function errorSummary(error: unknown): string {
-  if (!(error instanceof Error)) return "unknown";
-  const code = (error as { code?: unknown }).code;
-  if (typeof code === "string" && "sqlMessage" in error) return `${error.name} ${code}`;
-  return `${error.name}: ${error.message}`.slice(0, 300);
 }
 
 async function answer<C>(handler: Handler<C>, request: Request, context: C): Promise<Response> {

@@ -7,7 +7,7 @@ import pino from "pino";
  * never a body, a header value, a query string, an address, a password, a token or file bytes.
  * Fields that might carry those anyway are redacted by name.
  */
-export const log = pino({
+export const LOG_OPTIONS: pino.LoggerOptions = {
   level: process.env.LOG_LEVEL ?? (process.env.NODE_ENV === "test" ? "warn" : "info"),
   base: { app: "quireline" },
   redact: {
@@ -33,7 +33,9 @@ export const log = pino({
     ],
     censor: "[redacted]",
   },
-});
+};
+
+export const log = pino(LOG_OPTIONS);
 
 /** The path of a request URL without its query string (which can hold tokens). */
 export function pathOf(url: string): string {
@@ -42,4 +44,15 @@ export function pathOf(url: string): string {
   } catch {
     return "?";
   }
+}
+
+/**
+ * What a failure's log line says: a driver error's code only (its message can quote the values
+ * of the statement, people's text among them), else the error's name and message.
+ */
+export function errorSummary(error: unknown): string {
+  if (!(error instanceof Error)) return "unknown";
+  const code = (error as { code?: unknown }).code;
+  if (typeof code === "string" && "sqlMessage" in error) return `${error.name} ${code}`;
+  return `${error.name}: ${error.message}`.slice(0, 300);
 }

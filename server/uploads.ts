@@ -1,4 +1,5 @@
 import "server-only";
+import { errorSummary, log } from "@/server/log";
 /**
  * The one module that talks to the UploadThing SDK. Everything about where files go (the hosted
  * service, or the local fake in storage-fake/) is configuration read here from lib/env.ts.
@@ -119,7 +120,10 @@ export async function deleteStoredFiles(keys: string[]): Promise<void> {
   try {
     await utapi().deleteFiles(keys);
   } catch (error) {
-    console.error("could not delete stored files", keys, error);
+    log.error(
+      { kind: "storage", files: keys.length, error: errorSummary(error) },
+      "could not delete stored files",
+    );
   }
 }
 

@@ -29,6 +29,7 @@ import type { ArtBytes, PageContent, PlacedPage, ProducedPdf } from "@/lib/print
 import type { MapState } from "@/lib/map/types";
 import { deleteStoredFiles, readStoredFile, storedFileUrl, storeFile } from "@/server/uploads";
 import { reservedTextPagesFor } from "@/server/credits";
+import { log } from "@/server/log";
 import { artBytesOf } from "./art";
 
 /** A failure the editor reads as it is. */
@@ -316,7 +317,15 @@ export async function produceOutput(
     }
     return "done";
   } catch (error) {
-    if (!(error instanceof ProduceError)) console.error("print output failed", outputId, error);
+    if (!(error instanceof ProduceError))
+      log.error(
+        {
+          kind: "job-failed",
+          output: outputId,
+          error: error instanceof Error ? error.name : "unknown",
+        },
+        "print output failed",
+      );
     await markFailed(
       outputId,
       error instanceof ProduceError ? error.message : `producing stopped: ${message(error)}`,

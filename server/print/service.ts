@@ -1,4 +1,5 @@
 import "server-only";
+import { log } from "@/server/log";
 import { mastersFor } from "@/lib/print/masters";
 /**
  * What the print-file routes call: the screen's view (preflight, sheets, outputs) and a request
@@ -140,7 +141,10 @@ export async function requestPrintFiles(
     try {
       await setJobId(id, await enqueueOutput({ id, kind: wanted[i]!.kind, ink: wanted[i]!.ink }));
     } catch (error) {
-      console.error("could not queue a print output", id, error);
+      log.error(
+        { kind: "queue", output: id, error: error instanceof Error ? error.message : "unknown" },
+        "could not queue a print output",
+      );
       for (const left of ids.slice(i))
         await markFailed(left, "the print queue did not answer; produce again in a moment");
       throw new HttpError(

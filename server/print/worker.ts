@@ -6,6 +6,7 @@
  */
 import { Worker } from "bullmq";
 import { pool } from "@/db";
+import { log } from "@/server/log";
 import { produceOutput } from "./produce";
 import { PRINT_QUEUE, redisConnection, type PrintJobData } from "./queue";
 
@@ -14,23 +15,35 @@ const concurrency = Number.parseInt(process.env.PRINT_WORKER_CONCURRENCY ?? "", 
 const worker = new Worker<PrintJobData>(
   PRINT_QUEUE,
   async (job) => {
+    const started = performance.now();
     const result = await produceOutput(job.data.outputId, {
       onProgress: (done, total) => job.updateProgress({ done, total }),
       retake: job.stalledCounter > 0,
     });
-    console.log(JSON.stringify({ job: job.id, name: job.name, output: job.data.outputId, result }));
+    // Ids and the outcome only: never the files, the map or people's names.
+    log.info(
+      {
+        kind: "job",
+        job: job.id,
+        name: job.name,
+        output: job.data.outputId,
+        result,
+        ms: Math.round(performance.now() - started),
+      },
+      "print job",
+    );
     return result;
   },
   { connection: redisConnection(), concurrency },
 );
 
-worker.on("error", (error) => console.error("print worker:", error.message));
+worker.on("error", (error) => log.error({ kind: "worker", error: error.message }, "print worker"));
 
 let stopping = false;
 async function stop(signal: string) {
   if (stopping) return;
   stopping = true;
-  console.log(JSON.stringify({ stopping: signal }));
+  log.info({ kind: "worker", stopping: signal }, "print worker stopping");
   await worker.close().catch(() => undefined);
   await pool.end().catch(() => undefined);
   process.exit(0);

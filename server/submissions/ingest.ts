@@ -1,4 +1,5 @@
 import "server-only";
+import { errorSummary, log } from "@/server/log";
 /**
  * What happens to an artwork file once it is stored: read it back, check it against the
  * anthology's print spec, make a thumbnail, record the version with its report, move the page's
@@ -341,7 +342,7 @@ export async function ingestUpload(
 
   if (!outcome.duplicate && options.notify !== false) {
     await mailReport(ctx.anthology, request, outcome, report).catch((error: unknown) =>
-      console.error("spec report mail failed", error),
+      log.error({ kind: "mail", error: errorSummary(error) }, "spec report mail failed"),
     );
   }
   return {

@@ -1,4 +1,5 @@
 import "server-only";
+import { errorSummary, log } from "@/server/log";
 /**
  * After the print spec changes: every current file of the anthology (each page's file and each
  * separation's current master, checked as that ink's) is fetched again from the file host and checked against the new spec with the upload pipeline's own check, its report
@@ -27,7 +28,10 @@ export async function recheckCurrentFiles(anthologyId: number): Promise<RecheckS
       bytes = await readStoredFile(await storedFileUrl(file.storageKey));
     } catch (error) {
       // The file keeps the report it has; the summary says how many could not be checked.
-      console.error("could not fetch a file to check it again", file.versionId, error);
+      log.error(
+        { kind: "recheck", version: file.versionId, error: errorSummary(error) },
+        "could not fetch a file to check it again",
+      );
       summary.notChecked++;
       continue;
     }

@@ -1,4 +1,5 @@
 import "server-only";
+import { errorSummary, log } from "@/server/log";
 /**
  * The upload routes. One route, `artworkPage`: one file for one page of the caller's own piece.
  * The middleware decides before any byte is sent; onUploadComplete runs the spec-check pipeline
@@ -105,7 +106,7 @@ export const uploadRouter = {
             ok: false,
             error: `The file arrived but could not be read back (${error.message}); nothing was kept. Please upload it again.`,
           };
-        console.error("artwork ingest failed", error);
+        log.error({ kind: "ingest", error: errorSummary(error) }, "artwork ingest failed");
         return {
           ok: false,
           error:
