@@ -15,15 +15,16 @@ import { findPreset, type SizeMm } from "./sizes";
 export const MARKS_ALLOWANCE_MM = 8;
 
 /**
- * The named sheets each trim is printed on, folded once: two pages side by side along the spine.
+ * The named sheet each trim is printed on, folded once: two pages side by side along the spine.
  * Letter folded = half letter and tabloid folded = letter (REFERENCE.md, ANSI sheets); A4 folded
- * = A5 and A3 folded = A4 (ISO 216). The first is the default.
+ * = A5 and A3 folded = A4 (ISO 216). It comes first; larger named sheets that hold the pages
+ * with their bleed and marks follow.
  */
 export const SHEETS_FOR_TRIM: Readonly<Record<string, readonly string[]>> = {
-  "half-letter": ["letter", "a4"],
-  a5: ["a4", "letter"],
-  letter: ["tabloid", "a3"],
-  a4: ["a3", "tabloid"],
+  "half-letter": ["letter"],
+  a5: ["a4"],
+  letter: ["tabloid"],
+  a4: ["a3"],
 };
 
 /** Named sheets offered for any other trim when the layout fits them, smallest first. */
@@ -127,11 +128,16 @@ function presetSheet(id: string): PressSheetChoice | null {
 /** The named sheets this trim may be printed on; the first is the default. */
 export function presetSheetsFor(input: SheetLayoutInput): PressSheetChoice[] {
   const paired = input.trimPreset ? SHEETS_FOR_TRIM[input.trimPreset] : undefined;
-  if (paired && input.binding === "saddle-stitch")
-    return paired
+  if (input.binding === "saddle-stitch") {
+    const ids = [...new Set([...(paired ?? []), ...OTHER_PRESET_SHEETS])];
+    return ids
       .map(presetSheet)
       .filter((s): s is PressSheetChoice => s !== null)
-      .map((s) => ({ ...s, layoutNote: sheetMarksFor(input, s)?.note ?? null }));
+      .flatMap((s) => {
+        const fit = sheetMarksFor(input, s);
+        return fit ? [{ ...s, layoutNote: fit.note }] : [];
+      });
+  }
   const needed = neededSheetMm(input);
   return OTHER_PRESET_SHEETS.map(presetSheet).filter(
     (s): s is PressSheetChoice => s !== null && sheetHolds(s, needed),

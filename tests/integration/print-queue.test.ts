@@ -281,10 +281,11 @@ describe("producing print files", () => {
 
   it("refuses a sheet that does not suit the trim with 400, naming the ones that do", async () => {
     as(editor);
-    const res = await post(anthology.slug, { sheet: "tabloid" });
+    // A4 is 210 mm across; two half-letter pages stand 215.9 mm tall (ISO 216, ANSI sizes).
+    const res = await post(anthology.slug, { sheet: "a4" });
     expect(res.status).toBe(400);
     const body = (await res.json()) as { error: string; fields: Record<string, string[]> };
-    expect(body.fields.sheet?.[0]).toContain("use Letter (8.5 x 11 in) or A4");
+    expect(body.fields.sheet?.[0]).toContain("use Letter (8.5 x 11 in)");
   });
 
   it("refuses with 409 and the preflight while a piece is not placed", async () => {
@@ -320,7 +321,7 @@ describe("producing print files", () => {
       .where(eq(schema.fileVersions.id, gull.id));
     try {
       as(editor);
-      const res = await post(anthology.slug, { sheet: "a4" });
+      const res = await post(anthology.slug, { sheet: "tabloid" });
       expect(res.status).toBe(202);
       const { outputs } = (await res.json()) as { outputs: { id: number; kind: string }[] };
       const failed = await settled(outputs.find((o) => o.kind === "print")!.id);

@@ -11,7 +11,7 @@ const post = apiRoute<undefined>(async (request) => {
   const req = request as NextRequest;
   // Starting an upload is limited per person (per address when signed out); the SDK's
   // completion callbacks are not.
-  if (req.nextUrl.searchParams.get("actionType") === "upload") {
+  if (new URL(req.url).searchParams.get("actionType") === "upload") {
     const session = await auth();
     const who = session?.user?.id ? `user:${session.user.id}` : `address:${addressOf(req.headers)}`;
     const limited = await consume("uploadStart", who);

@@ -36,22 +36,33 @@ const letter: SheetLayoutInput = {
 const a4: SheetLayoutInput = { ...a5, trimPreset: "a4", trimWidthMm: 210, trimHeightMm: 297 };
 
 describe("press sheets for a trim", () => {
-  it("half letter prints on letter (letter folded = half letter, REFERENCE.md) or A4", () => {
-    expect(presetSheetsFor(halfLetter).map((s) => s.id)).toEqual(["letter", "a4"]);
+  it("half letter prints on letter (letter folded = half letter, REFERENCE.md), or a larger sheet it fits", () => {
+    // A4 is 210 mm across: two half-letter pages stand 215.9 mm tall, so it holds them neither way.
+    expect(presetSheetsFor(halfLetter).map((s) => s.id)).toEqual([
+      "letter",
+      "legal",
+      "tabloid",
+      "a3",
+    ]);
     expect(defaultSheetFor(halfLetter)?.id).toBe("letter");
+    // Letter is the spread itself: edge to edge, said so; tabloid and A3 keep bleed and marks.
+    const byId = Object.fromEntries(presetSheetsFor(halfLetter).map((s) => [s.id, s.layoutNote]));
+    expect(byId.letter).toContain("no room for bleed or crop marks");
+    expect(byId.tabloid).toBeNull();
+    expect(byId.a3).toBeNull();
   });
-  it("A5 on A4 (A4 folded = A5, ISO 216) or letter; letter on tabloid or A3; A4 on A3 or tabloid", () => {
+  it("A5 on A4 (A4 folded = A5, ISO 216); letter on tabloid; A4 on A3", () => {
     expect(defaultSheetFor(a5)?.id).toBe("a4");
-    expect(presetSheetsFor(letter).map((s) => s.id)).toEqual(["tabloid", "a3"]);
+    // Letter is 279.4 mm long: two A5 pages need 296 mm, so it is not offered for A5.
+    expect(presetSheetsFor(a5).map((s) => s.id)).not.toContain("letter");
+    expect(presetSheetsFor(letter).map((s) => s.id)).toEqual(["tabloid"]);
     expect(defaultSheetFor(a4)?.id).toBe("a3");
   });
   it("a named sheet that does not suit the trim is refused, naming the ones that do", () => {
-    const r = resolveSheet(halfLetter, "tabloid");
+    const r = resolveSheet(halfLetter, "a4");
     expect(r.ok).toBe(false);
     if (!r.ok)
-      expect(r.message).toBe(
-        "Tabloid (11 x 17 in) does not suit this trim: use Letter (8.5 x 11 in) or A4, or give a custom sheet size.",
-      );
+      expect(r.message).toMatch(/^A4 .*does not suit this trim: use Letter \(8\.5 x 11 in\)/);
     const unknown = resolveSheet(halfLetter, "napkin");
     expect(unknown.ok).toBe(false);
   });
