@@ -12,9 +12,9 @@ const testOffset = Number.parseInt(process.env.QUIRELINE_TEST_PORT_OFFSET ?? "",
 const shift = (ports, by) => Object.fromEntries(Object.entries(ports).map(([k, v]) => [k, v + by]));
 
 export const PORTS = {
-  start: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
-  dev: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526 },
-  test: shift({ app: 3100, upload: 4690, smtp: 4625, outbox: 4626 }, testOffset),
+  start: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526, payments: 4512 },
+  dev: { app: 3000, upload: 4590, smtp: 4525, outbox: 4526, payments: 4512 },
+  test: shift({ app: 3100, upload: 4690, smtp: 4625, outbox: 4626, payments: 4612 }, testOffset),
 };
 const PORT_OWNERS = {
   3000: "the web app of a Quireline `npm start` or `npm run dev`",
@@ -25,6 +25,8 @@ const PORT_OWNERS = {
   4690: "the upload fake of a Quireline `npm test`",
   4625: "the SMTP sink of a Quireline `npm test`",
   4626: "the outbox API of a Quireline `npm test`",
+  4512: "the payments fake of a Quireline `npm start`",
+  4612: "the payments fake of a Quireline `npm test`",
 };
 
 function portFree(port, host) {
@@ -63,7 +65,13 @@ function describeHolder(port) {
 }
 
 export async function checkPorts(ports) {
-  const labels = { app: "web app", upload: "upload fake", smtp: "SMTP sink", outbox: "outbox API" };
+  const labels = {
+    app: "web app",
+    upload: "upload fake",
+    smtp: "SMTP sink",
+    outbox: "outbox API",
+    payments: "payments fake",
+  };
   const problems = [];
   for (const [key, port] of Object.entries(ports)) {
     if ((await portFree(port, "127.0.0.1")) && (await portFree(port, "::1"))) continue;
