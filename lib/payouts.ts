@@ -78,7 +78,9 @@ export function periodSales(sales: readonly SaleFigures[]): PeriodSales {
     channelFeesCents += sale.channelFeesCents;
     recoverableCostsCents += sale.recoverableCostsCents;
   }
-  const netCents = assertCents(grossCents - discountCents - channelFeesCents - recoverableCostsCents);
+  const netCents = assertCents(
+    grossCents - discountCents - channelFeesCents - recoverableCostsCents,
+  );
   return {
     copies,
     grossCents,

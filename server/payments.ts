@@ -20,7 +20,11 @@ function payments(): Stripe {
     throw new PaymentProblem("Payments are not set up here (STRIPE_SECRET_KEY is missing).", 503);
   client ??= new Stripe(e.STRIPE_SECRET_KEY, {
     ...(e.STRIPE_API_HOST
-      ? { host: e.STRIPE_API_HOST, port: e.STRIPE_API_PORT ?? 443, protocol: e.STRIPE_API_PORT && e.STRIPE_API_HOST === "127.0.0.1" ? "http" : "https" }
+      ? {
+          host: e.STRIPE_API_HOST,
+          port: e.STRIPE_API_PORT ?? 443,
+          protocol: e.STRIPE_API_PORT && e.STRIPE_API_HOST === "127.0.0.1" ? "http" : "https",
+        }
       : {}),
     maxNetworkRetries: 2,
     timeout: 20_000,
@@ -161,9 +165,17 @@ export type PaymentEvent = Stripe.Event;
  * Checks a webhook's Stripe-Signature over the raw body with the SDK's own verifier (HMAC-SHA256,
  * five minutes' tolerance); throws for a forged, altered or stale one.
  */
-export function verifyWebhook(rawBody: string, signature: string | null, secret?: string): Stripe.Event {
+export function verifyWebhook(
+  rawBody: string,
+  signature: string | null,
+  secret?: string,
+): Stripe.Event {
   const key = secret ?? env().STRIPE_WEBHOOK_SECRET;
-  if (!key) throw new PaymentProblem("Webhooks are not set up here (STRIPE_WEBHOOK_SECRET is missing).", 503);
+  if (!key)
+    throw new PaymentProblem(
+      "Webhooks are not set up here (STRIPE_WEBHOOK_SECRET is missing).",
+      503,
+    );
   if (!signature) throw new PaymentProblem("The webhook has no signature.", 400);
   try {
     return payments().webhooks.constructEvent(rawBody, signature, key);

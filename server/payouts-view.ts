@@ -155,9 +155,7 @@ export async function ledgerView(anthology: Anthology): Promise<LedgerAnswer> {
         pieces: 0,
         pages: 0,
       });
-  const accounts = new Map(
-    (await payoutAccountsFor([...people.keys()])).map((a) => [a.userId, a]),
-  );
+  const accounts = new Map((await payoutAccountsFor([...people.keys()])).map((a) => [a.userId, a]));
   const labels = new Map(periods.map((p) => [p.id, p.label]));
   return {
     currency: anthology.currency,

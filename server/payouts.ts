@@ -67,7 +67,8 @@ export async function closePayoutPeriod(anthology: Anthology, periodId: number, 
   if (!period) throw refuse(404, "There is no such period.");
   if (period.closedAt) throw refuse(409, `The period “${period.label}” is already closed.`);
   const terms = await findPayoutTerms(anthology.id);
-  if (!terms) throw refuse(409, "This anthology has no open call, so there are no terms to pay by.");
+  if (!terms)
+    throw refuse(409, "This anthology has no open call, so there are no terms to pay by.");
   const sales = await listSales(anthology.id, periodRange(period));
   const work = await contributorWork(anthology.id);
   const result = closePeriod({
@@ -87,7 +88,9 @@ export async function closePayoutPeriod(anthology: Anthology, periodId: number, 
     currency: anthology.currency,
     computation: l.computation,
     dedupeKey:
-      l.source === "fee" ? `fee:${anthology.id}:${l.contributorId}` : `share:${periodId}:${l.contributorId}`,
+      l.source === "fee"
+        ? `fee:${anthology.id}:${l.contributorId}`
+        : `share:${periodId}:${l.contributorId}`,
     createdBy: userId,
   }));
   let closed: boolean;
@@ -99,7 +102,8 @@ export async function closePayoutPeriod(anthology: Anthology, periodId: number, 
       lines,
     );
   } catch (error) {
-    if (isDuplicateKey(error)) throw refuse(409, "Another request has just written these lines; reload.");
+    if (isDuplicateKey(error))
+      throw refuse(409, "Another request has just written these lines; reload.");
     throw error;
   }
   if (!closed) throw refuse(409, `The period “${period.label}” is already closed.`);
@@ -203,7 +207,9 @@ export async function payEntryByTransfer(
     settlesEntryId: entry.id,
     computation: {
       inputs: { transferCents: attempt.amountCents, attempt: attempt.attempt },
-      working: [`Transfer ${transferId} of line ${entry.id} sent; paid once the service confirms it.`],
+      working: [
+        `Transfer ${transferId} of line ${entry.id} sent; paid once the service confirms it.`,
+      ],
     },
     reference: transferId,
     dedupeKey: `scheduled:${transferId}`,
@@ -267,7 +273,10 @@ export async function reverseOwedLine(
     amountCents: signedAmount("reversed", 0, entry.amountCents),
     currency: entry.currency,
     reversesEntryId: entry.id,
-    computation: { inputs: { reversedCents: entry.amountCents }, working: [`Cancelled: ${input.reason}`] },
+    computation: {
+      inputs: { reversedCents: entry.amountCents },
+      working: [`Cancelled: ${input.reason}`],
+    },
     dedupeKey: `reversed:${entry.id}`,
     createdBy: input.userId,
   });
@@ -349,7 +358,8 @@ async function transferConfirmed(transfer: {
 }): Promise<string> {
   const entry = await entryOfTransfer(transfer);
   if (!entry || entry.kind !== "owed") return "not one of ours";
-  const destination = typeof transfer.destination === "string" ? transfer.destination : transfer.destination?.id;
+  const destination =
+    typeof transfer.destination === "string" ? transfer.destination : transfer.destination?.id;
   const account = destination ? await findPayoutAccountByProviderId(destination) : null;
   // A signed event still has to match the line it names before anyone is marked paid.
   if (
@@ -401,7 +411,10 @@ async function transferReversed(transfer: {
     currency: entry.currency,
     reversesEntryId: paid.id,
     settlesEntryId: entry.id,
-    computation: { inputs: { transfer: transfer.id }, working: [`Transfer ${transfer.id} was reversed by the service; the line is owed again.`] },
+    computation: {
+      inputs: { transfer: transfer.id },
+      working: [`Transfer ${transfer.id} was reversed by the service; the line is owed again.`],
+    },
     reference: transfer.id,
     dedupeKey: `reversed:${paid.id}`,
     createdBy: null,

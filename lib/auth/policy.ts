@@ -20,7 +20,11 @@ export const ACTIONS = {
   "production:view": ["lead", "editor", "finisher"],
   "finishing:mark-done": ["lead", "editor", "finisher"],
   "contributors:private-data": ["lead", "editor"],
+  /** Recording sales and seeing net sales and the contributors' pool. */
+  "sales:record": ["lead", "editor"],
+  /** The ledger of every contributor: closing periods, paying, statements, exports. */
   "payouts:manage": ["lead"],
+  /** A contributor's own ledger lines, statements and payout account. */
   "payouts:view-own": ["contributor"],
 } as const satisfies Record<string, readonly Role[]>;
 

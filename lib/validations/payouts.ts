@@ -21,13 +21,18 @@ const cents = (what: string, { signed = false } = {}) =>
   z
     .number({ error: `Give ${what} in cents` })
     .int(`${what[0]!.toUpperCase()}${what.slice(1)} must be whole cents`)
-    .min(signed ? -1_000_000_000 : 0, `${what[0]!.toUpperCase()}${what.slice(1)} cannot be below zero`)
+    .min(
+      signed ? -1_000_000_000 : 0,
+      `${what[0]!.toUpperCase()}${what.slice(1)} cannot be below zero`,
+    )
     .max(1_000_000_000, "That is more than Quireline records in one line");
 
 /** One sale, or a batch of sales at one price, as the sales screen sends it. */
 export const saleSchema = z.object({
   channel: z.enum(SALE_CHANNELS, { error: "Choose where the copies were sold" }),
-  label: singleLineText(LENGTH.saleLabel).pipe(z.string().min(1, "Say where, e.g. “Harbour Zine Fair”")),
+  label: singleLineText(LENGTH.saleLabel).pipe(
+    z.string().min(1, "Say where, e.g. “Harbour Zine Fair”"),
+  ),
   soldOn: day,
   copies: z
     .number({ error: "Give the number of copies" })
@@ -46,11 +51,16 @@ export type SaleInput = z.input<typeof saleSchema>;
 /** A new period to share sales out over. */
 export const periodSchema = z
   .object({
-    label: singleLineText(LENGTH.periodLabel).pipe(z.string().min(1, "Name the period, e.g. “Autumn 2026”")),
+    label: singleLineText(LENGTH.periodLabel).pipe(
+      z.string().min(1, "Name the period, e.g. “Autumn 2026”"),
+    ),
     startsOn: day,
     endsOn: day,
   })
-  .refine((p) => p.endsOn >= p.startsOn, { path: ["endsOn"], message: "The last day comes after the first" });
+  .refine((p) => p.endsOn >= p.startsOn, {
+    path: ["endsOn"],
+    message: "The last day comes after the first",
+  });
 
 export const markPaidSchema = z.object({
   reference: singleLineText(LENGTH.paymentReference).pipe(
@@ -59,7 +69,9 @@ export const markPaidSchema = z.object({
 });
 
 export const reverseSchema = z.object({
-  reason: singleLineText(LENGTH.paymentReference).pipe(z.string().min(3, "Say why it is cancelled")),
+  reason: singleLineText(LENGTH.paymentReference).pipe(
+    z.string().min(3, "Say why it is cancelled"),
+  ),
 });
 
 export const statementsSchema = z.object({ periodId: z.number().int().positive() });

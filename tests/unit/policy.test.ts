@@ -26,6 +26,7 @@ const TABLE: Record<Action, string> = {
   "production:view": "LEF",
   "finishing:mark-done": "LEF",
   "contributors:private-data": "LE",
+  "sales:record": "LE",
   "payouts:manage": "L",
   "payouts:view-own": "C",
 };
@@ -55,6 +56,8 @@ describe("role rules", () => {
   it("keeps finishers away from contributors' private data and money", () => {
     expect(can("finisher", "contributors:private-data")).toBe(false);
     expect(can("finisher", "payouts:manage")).toBe(false);
+    expect(can("finisher", "sales:record")).toBe(false);
+    expect(can("finisher", "payouts:view-own")).toBe(false);
   });
 
   it("lets only leads invite leads", () => {

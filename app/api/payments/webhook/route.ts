@@ -1,0 +1,29 @@
+import { PaymentProblem, verifyWebhook } from "@/server/payments";
+import { handlePaymentEvent } from "@/server/payouts";
+
+/**
+ * The payments service's webhooks. No session: the Stripe-Signature over the raw body is the
+ * authority (the SDK's constructEvent). 400 for a bad signature; 200 for a replay (already seen);
+ * 500 on a failure, so the service tries again.
+ */
+export async function POST(request: Request) {
+  const raw = await request.text();
+  let event;
+  try {
+    event = verifyWebhook(raw, request.headers.get("stripe-signature"));
+  } catch (error) {
+    if (error instanceof PaymentProblem)
+      return Response.json({ error: error.message }, { status: error.status });
+    throw error;
+  }
+  try {
+    const result = await handlePaymentEvent(event);
+    return Response.json({ received: true, ...result });
+  } catch (error) {
+    console.error("payments webhook failed", error);
+    return Response.json(
+      { error: "Could not apply the event; it will be retried." },
+      { status: 500 },
+    );
+  }
+}
