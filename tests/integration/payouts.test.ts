@@ -70,8 +70,8 @@ const jsonRequest = (url: string, method: string, body?: unknown) =>
     body: body === undefined ? undefined : JSON.stringify(body),
   });
 
-const ctx = (extra: Record<string, string> = {}) => ({
-  params: Promise.resolve({ slug, ...extra }),
+const ctx = (extra: { id?: string } = {}) => ({
+  params: Promise.resolve({ slug, id: extra.id ?? "" }),
 });
 
 // The listener the fake delivers to: it hands each delivery to the webhook route as-is.
@@ -140,11 +140,20 @@ async function connect(who: TestPerson, finish: boolean) {
 }
 
 beforeAll(async () => {
-  [lead, editor, finisher, outsider, ada, ben, cy] = await Promise.all(
+  const made = await Promise.all(
     ["lead", "editor", "finisher", "outsider", "ada", "ben", "cy"].map((l) =>
       makePerson(`pay-${l}`),
     ),
   );
+  [lead, editor, finisher, outsider, ada, ben, cy] = made as [
+    TestPerson,
+    TestPerson,
+    TestPerson,
+    TestPerson,
+    TestPerson,
+    TestPerson,
+    TestPerson,
+  ];
   anthology = await makeAnthologyWithCall([
     { person: lead, role: "lead" },
     { person: editor, role: "editor" },

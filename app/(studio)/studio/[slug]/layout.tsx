@@ -12,6 +12,9 @@ const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "/submissions", label: "Submissions", action: "pieces:review" },
   { href: "/my-pieces", label: "My pieces", action: "pieces:view-own" },
   { href: "/map", label: "Page map", action: "map:view" },
+  { href: "/sales", label: "Sales", action: "sales:record" },
+  { href: "/payouts", label: "Payouts", action: "payouts:manage" },
+  { href: "/my-payouts", label: "My payouts", action: "payouts:view-own" },
   { href: "/members", label: "People", action: "members:invite" },
 ];
 
