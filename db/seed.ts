@@ -5,6 +5,7 @@ import { seedOpenCall } from "./seed/open-call";
 import { seedSubmissions } from "./seed/submissions";
 import { seedReview } from "./seed/review";
 import { seedPageMap } from "./seed/page-map";
+import { seedPayouts } from "./seed/payouts";
 
 async function main() {
   const demo = await seedDemoPress(db);
@@ -19,6 +20,12 @@ async function main() {
   const map = await seedPageMap(db);
   if (map)
     console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
+  // After the map: the money follows the accepted pieces (needs the payments fake and the SMTP sink).
+  const payouts = await seedPayouts(db);
+  if (payouts)
+    console.log(
+      `demo payouts seeded: ${payouts.lines} ledger lines, ${payouts.statements} statements mailed`,
+    );
 }
 
 main()

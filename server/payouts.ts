@@ -32,7 +32,7 @@ import {
   type NewEntry,
 } from "@/db/queries/payouts";
 import { closePeriod, signedAmount } from "@/lib/payouts";
-import { HttpError } from "@/server/api";
+import { Refusal } from "@/lib/refusal";
 import {
   createConnectedAccount,
   createTransfer,
@@ -42,7 +42,7 @@ import {
   type PaymentEvent,
 } from "@/server/payments";
 
-const refuse = (status: number, message: string) => new HttpError(status, message);
+const refuse = (status: Refusal["status"], message: string) => new Refusal(status, message);
 
 /** The inclusive date range of a period: its first day at 00:00 to its last day's end. */
 export function periodRange(period: { startsOn: Date; endsOn: Date }) {
@@ -187,12 +187,12 @@ export async function payEntryByTransfer(
   } catch (error) {
     if (error instanceof PaymentProblem && error.status !== 502) {
       await settleTransferAttempt(attempt.id, { state: "failed", error: error.message });
-      throw refuse(409, error.message);
+      throw new Refusal(409, error.message);
     }
     // No answer: the transfer may or may not exist. The attempt stays open and a retry reuses its key.
-    throw refuse(
-      502,
+    throw new PaymentProblem(
       "The payments service did not answer. Nothing is marked paid; try again and the same transfer will be reused.",
+      502,
     );
   }
   await settleTransferAttempt(attempt.id, { state: "sent", providerTransferId: transferId });

@@ -8,7 +8,7 @@ import { payoutStatementMail } from "@/lib/mail/templates/payout-statement";
 import { ledgerTotals } from "@/lib/payouts";
 import { personLabel } from "@/lib/people";
 import type { StatementData } from "@/lib/statements";
-import { HttpError } from "@/server/api";
+import { Refusal } from "@/lib/refusal";
 import { appUrl, sendLoggedMail } from "@/server/mail";
 
 export async function statementData(
@@ -17,14 +17,14 @@ export async function statementData(
   contributorId: string,
 ): Promise<StatementData> {
   const period = await findPeriod(anthology.id, periodId);
-  if (!period) throw new HttpError(404, "There is no such period.");
+  if (!period) throw new Refusal(404, "There is no such period.");
   if (!period.closedAt)
-    throw new HttpError(409, `The period “${period.label}” is still open; close it first.`);
+    throw new Refusal(409, `The period “${period.label}” is still open; close it first.`);
   const [person] = await db
     .select({ name: schema.users.name, email: schema.users.email })
     .from(schema.users)
     .where(eq(schema.users.id, contributorId));
-  if (!person) throw new HttpError(404, "There is no such contributor.");
+  if (!person) throw new Refusal(404, "There is no such contributor.");
   const pieces = await db
     .select({
       title: schema.pieces.title,
@@ -41,7 +41,7 @@ export async function statementData(
     );
   const lines = await ledgerFor(anthology.id, contributorId);
   if (pieces.length === 0 && lines.length === 0)
-    throw new HttpError(404, "That person has nothing in this anthology's ledger.");
+    throw new Refusal(404, "That person has nothing in this anthology's ledger.");
   const copies = await copiesGiven(anthology.id, contributorId);
   const totals = ledgerTotals(lines);
   return {
@@ -72,9 +72,9 @@ export async function statementData(
 /** E-mails every contributor with work or lines their statement for a closed period, once each. */
 export async function sendStatements(anthology: Anthology, periodId: number) {
   const period = await findPeriod(anthology.id, periodId);
-  if (!period) throw new HttpError(404, "There is no such period.");
+  if (!period) throw new Refusal(404, "There is no such period.");
   if (!period.closedAt)
-    throw new HttpError(409, `The period “${period.label}” is still open; close it first.`);
+    throw new Refusal(409, `The period “${period.label}” is still open; close it first.`);
   const work = await contributorWork(anthology.id);
   const withLines = new Set((await ledgerFor(anthology.id)).map((l) => l.contributorId));
   const people = new Map(work.map((w) => [w.contributorId, w]));
