@@ -7,7 +7,12 @@ import { handlePaymentEvent } from "@/server/payouts";
  * 500 on a failure, so the service tries again.
  */
 export async function POST(request: Request) {
+  // Events are a few kilobytes; anything far larger is not one.
+  if (Number(request.headers.get("content-length") ?? 0) > 512 * 1024)
+    return Response.json({ error: "The body is too large for an event." }, { status: 413 });
   const raw = await request.text();
+  if (raw.length > 512 * 1024)
+    return Response.json({ error: "The body is too large for an event." }, { status: 413 });
   let event;
   try {
     event = verifyWebhook(raw, request.headers.get("stripe-signature"));
