@@ -154,7 +154,13 @@ describe("fees, losses and the ledger", () => {
 
   it("takes no share from a loss", () => {
     const p = periodSales([
-      { copies: 2, unitPriceCents: 1000, discountCents: 0, channelFeesCents: 0, recoverableCostsCents: 5000 },
+      {
+        copies: 2,
+        unitPriceCents: 1000,
+        discountCents: 0,
+        channelFeesCents: 0,
+        recoverableCostsCents: 5000,
+      },
     ]);
     expect(p.netCents).toBe(-3000);
     expect(p.shareBaseCents).toBe(0);
@@ -168,11 +174,41 @@ describe("fees, losses and the ledger", () => {
 
   it("sums lines into a balance, with paid and reversed lines settling what they name", () => {
     const lines: LedgerLine[] = [
-      { id: 1, kind: "owed", amountCents: signedAmount("owed", 2500), settlesEntryId: null, reversesEntryId: null },
-      { id: 2, kind: "owed", amountCents: signedAmount("owed", 647), settlesEntryId: null, reversesEntryId: null },
-      { id: 3, kind: "scheduled", amountCents: signedAmount("scheduled", 2500), settlesEntryId: 1, reversesEntryId: null },
-      { id: 4, kind: "paid", amountCents: signedAmount("paid", 2500), settlesEntryId: 1, reversesEntryId: null },
-      { id: 5, kind: "reversed", amountCents: signedAmount("reversed", 0, 647), settlesEntryId: null, reversesEntryId: 2 },
+      {
+        id: 1,
+        kind: "owed",
+        amountCents: signedAmount("owed", 2500),
+        settlesEntryId: null,
+        reversesEntryId: null,
+      },
+      {
+        id: 2,
+        kind: "owed",
+        amountCents: signedAmount("owed", 647),
+        settlesEntryId: null,
+        reversesEntryId: null,
+      },
+      {
+        id: 3,
+        kind: "scheduled",
+        amountCents: signedAmount("scheduled", 2500),
+        settlesEntryId: 1,
+        reversesEntryId: null,
+      },
+      {
+        id: 4,
+        kind: "paid",
+        amountCents: signedAmount("paid", 2500),
+        settlesEntryId: 1,
+        reversesEntryId: null,
+      },
+      {
+        id: 5,
+        kind: "reversed",
+        amountCents: signedAmount("reversed", 0, 647),
+        settlesEntryId: null,
+        reversesEntryId: 2,
+      },
     ];
     expect(ledgerBalance(lines)).toBe(0);
     expect(ledgerTotals(lines)).toEqual({ owedCents: 2500, paidCents: 2500, outstandingCents: 0 });
