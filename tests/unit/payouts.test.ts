@@ -216,3 +216,22 @@ describe("fees, losses and the ledger", () => {
     expect(openOwedLines(lines.slice(0, 3)).map((l) => l.id)).toEqual([1, 2]);
   });
 });
+
+describe("the call's split rule", () => {
+  it("is one of the payment terms, named when it changes and in the call's words", async () => {
+    const { changedTerms, DEFAULT_TERMS, callInputSchema } = await import("@/lib/validations/call");
+    const { salesShareText } = await import("@/lib/call-terms");
+    expect(DEFAULT_TERMS.shareSplit).toBe("per-page");
+    expect(changedTerms(DEFAULT_TERMS, { ...DEFAULT_TERMS, shareSplit: "equal" })).toEqual([
+      "how the share is split",
+    ]);
+    expect(salesShareText(1000, "per-piece")).toBe(
+      "10 % of net sales, shared among the contributors by pieces in the book",
+    );
+    expect(salesShareText(1000, "equal")).toBe(
+      "10 % of net sales, shared among the contributors equally",
+    );
+    const shape = callInputSchema as unknown as { shape?: Record<string, unknown> };
+    expect(Object.keys(shape.shape ?? {})).toContain("shareSplit");
+  });
+});

@@ -1,6 +1,6 @@
 import { Notice } from "@/components/ui/notice";
 import { salesShareText } from "@/lib/call-terms";
-import { SALE_CHANNEL_LABELS, SHARE_SPLIT_LABELS } from "@/lib/domain";
+import { SALE_CHANNEL_LABELS } from "@/lib/domain";
 import { formatCents } from "@/lib/money";
 import { RECORDS_NOTE } from "@/lib/payouts";
 import { requireAnthologyAccess } from "@/server/auth/guard";
@@ -20,7 +20,7 @@ export default async function SalesPage({ params }: { params: Promise<{ slug: st
         <h1 className="text-3xl font-extrabold">Sales of {anthology.title}</h1>
         <p className="text-sm text-ink-soft">
           {view.terms
-            ? `${salesShareText(view.terms.salesShareBasisPoints)}, split ${SHARE_SPLIT_LABELS[view.terms.shareSplit]}.`
+            ? `${salesShareText(view.terms.salesShareBasisPoints, view.terms.shareSplit)}.`
             : "No open call yet, so no share of sales is set."}{" "}
           Net = copies × price − discounts − channel fees − costs recovered first.
         </p>
