@@ -30,12 +30,22 @@ import {
   PRINT_METHODS,
   PRINT_OUTPUT_KINDS,
   PRINT_OUTPUT_STATES,
+  LEDGER_KINDS,
+  LEDGER_SOURCES,
   ROLES,
+  SALE_CHANNELS,
+  SHARE_SPLITS,
   SLOT_RESERVATIONS,
+  TRANSFER_STATES,
   type AnthologyStage,
   type Binding,
   type CoverStock,
   type FeeKind,
+  type LedgerKind,
+  type LedgerSource,
+  type SaleChannel,
+  type ShareSplit,
+  type TransferState,
   type PieceKind,
   type PieceStatus,
   type PrintMethod,
@@ -44,6 +54,7 @@ import {
   type Role,
   type SlotReservation,
 } from "../lib/domain";
+import type { LedgerComputation } from "../lib/payouts";
 import { LENGTH } from "../lib/validations/limits";
 
 const id = () => bigint("id", { mode: "number", unsigned: true }).autoincrement().primaryKey();
@@ -233,6 +244,11 @@ export const calls = mysqlTable("open_call", {
   feeCents: int("fee_cents").notNull().default(0),
   /** Contributors' pooled share of net sales, in basis points (1 % = 100). */
   salesShareBasisPoints: int("sales_share_bp").notNull().default(0),
+  /** How the contributors' share is divided among them: by pieces, by pages or equally. */
+  shareSplit: varchar("share_split", { length: 16, enum: SHARE_SPLITS })
+    .$type<ShareSplit>()
+    .notNull()
+    .default("per-page"),
   contributorCopies: int("contributor_copies").notNull().default(1),
   rightsAsked: text("rights_asked").notNull(),
   publishedAt: datetime("published_at", { mode: "date" }),
@@ -518,18 +534,65 @@ export const finishingBatches = mysqlTable("finishing_batch", {
   doneAt: datetime("done_at", { mode: "date" }),
 });
 
-export const sales = mysqlTable("sale", {
-  id: id(),
-  anthologyId: ref("anthology_id")
-    .notNull()
-    .references(() => anthologies.id, { onDelete: "cascade" }),
-  label: varchar("label", { length: 120 }).notNull(),
-  copies: int("copies").notNull(),
-  grossCents: bigint("gross_cents", { mode: "number" }).notNull(),
-  costsCents: bigint("costs_cents", { mode: "number" }).notNull().default(0),
-  soldOn: datetime("sold_on", { mode: "date" }).notNull(),
-});
+/**
+ * One sale, or one batch of sales, at an event or through a channel. Amounts are integer cents in
+ * the anthology's currency; net = copies x unit price - discounts - channel fees - recoverable costs.
+ * Rows are never edited: a mistake is put right with another row (negative copies or amounts).
+ */
+export const sales = mysqlTable(
+  "sale",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    channel: varchar("channel", { length: 16, enum: SALE_CHANNELS }).$type<SaleChannel>().notNull(),
+    label: varchar("label", { length: LENGTH.saleLabel }).notNull(),
+    soldOn: datetime("sold_on", { mode: "date" }).notNull(),
+    copies: int("copies").notNull(),
+    unitPriceCents: bigint("unit_price_cents", { mode: "number" }).notNull(),
+    discountCents: bigint("discount_cents", { mode: "number" }).notNull().default(0),
+    /** What the channel kept: a shop's commission, a card reader's fee. */
+    channelFeesCents: bigint("channel_fees_cents", { mode: "number" }).notNull().default(0),
+    /** Costs the terms let the press take back before the share: printing, a table fee. */
+    recoverableCostsCents: bigint("recoverable_costs_cents", { mode: "number" })
+      .notNull()
+      .default(0),
+    currency: char("currency", { length: 3 }).notNull(),
+    note: varchar("note", { length: LENGTH.saleNote }),
+    recordedBy: userRef("recorded_by").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("sale_anthology").on(t.anthologyId, t.soldOn)],
+);
 
+/** A stretch of dates whose net sales are shared out once, when the editor closes it. */
+export const payoutPeriods = mysqlTable(
+  "payout_period",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    label: varchar("label", { length: LENGTH.periodLabel }).notNull(),
+    /** First and last day, inclusive, as UTC midnights. */
+    startsOn: datetime("starts_on", { mode: "date" }).notNull(),
+    endsOn: datetime("ends_on", { mode: "date" }).notNull(),
+    /** The whole computation at closing: sales, net, pool, split, fees (see lib/payouts). */
+    computation: json("computation"),
+    closedAt: datetime("closed_at", { mode: "date", fsp: 3 }),
+    closedBy: userRef("closed_by"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("payout_period_label").on(t.anthologyId, t.label)],
+);
+
+/**
+ * The payouts ledger: append-only. A contributor's balance is the sum of their amounts (owed is
+ * positive, paid negative, scheduled zero, a reversal the opposite of what it reverses). Each row
+ * says how it was worked out. `dedupe_key` makes the once-only rules hold under races: one share
+ * per period and person, one fee line per person, one paid line per owed line.
+ */
 export const payoutEntries = mysqlTable(
   "payout_entry",
   {
@@ -538,12 +601,69 @@ export const payoutEntries = mysqlTable(
       .notNull()
       .references(() => anthologies.id, { onDelete: "cascade" }),
     contributorId: userRef("contributor_id").notNull(),
-    kind: varchar("kind", { length: 24 }).notNull(),
+    periodId: ref("period_id"),
+    kind: varchar("kind", { length: 16, enum: LEDGER_KINDS }).$type<LedgerKind>().notNull(),
+    source: varchar("source", { length: 16, enum: LEDGER_SOURCES }).$type<LedgerSource>().notNull(),
     amountCents: bigint("amount_cents", { mode: "number" }).notNull(),
     currency: char("currency", { length: 3 }).notNull(),
-    state: varchar("state", { length: 16 }).notNull().default("owed"),
-    memo: varchar("memo", { length: 255 }),
+    /** The owed line a scheduled or paid line settles. */
+    settlesEntryId: ref("settles_entry_id"),
+    /** The line a reversal cancels. */
+    reversesEntryId: ref("reverses_entry_id"),
+    /** The terms and inputs the amount came from, and its working in words. */
+    computation: json("computation").$type<LedgerComputation>().notNull(),
+    /** A transfer id, or the editor's reference for a payment made by hand. */
+    reference: varchar("reference", { length: LENGTH.paymentReference }),
+    dedupeKey: varchar("dedupe_key", { length: 191 }).notNull().unique(),
+    createdBy: userRef("created_by"),
     createdAt: createdAt(),
   },
   (t) => [index("payout_entry_person").on(t.anthologyId, t.contributorId)],
 );
+
+/** A contributor's connected account at the payments service (one per person, any anthology). */
+export const payoutAccounts = mysqlTable("payout_account", {
+  userId: userRef("user_id")
+    .primaryKey()
+    .references(() => users.id, { onDelete: "cascade" }),
+  providerAccountId: varchar("provider_account_id", { length: 64 }).notNull().unique(),
+  detailsSubmitted: boolean("details_submitted").notNull().default(false),
+  transfersActive: boolean("transfers_active").notNull().default(false),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+/**
+ * One attempt to pay an owed line by transfer. The idempotency key is per owed line and attempt,
+ * so a retried request reaches the same transfer; a failed attempt lets the next one start.
+ */
+export const payoutTransfers = mysqlTable(
+  "payout_transfer",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    entryId: ref("entry_id").notNull(),
+    attempt: int("attempt").notNull(),
+    idempotencyKey: varchar("idempotency_key", { length: 64 }).notNull().unique(),
+    providerTransferId: varchar("provider_transfer_id", { length: 64 }).unique(),
+    destination: varchar("destination", { length: 64 }).notNull(),
+    amountCents: bigint("amount_cents", { mode: "number" }).notNull(),
+    currency: char("currency", { length: 3 }).notNull(),
+    state: varchar("state", { length: 16, enum: TRANSFER_STATES }).$type<TransferState>().notNull(),
+    error: varchar("error", { length: 500 }),
+    createdBy: userRef("created_by").notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("payout_transfer_attempt").on(t.entryId, t.attempt)],
+);
+
+/** Every payments webhook event handled, by the service's event id: a replay is seen and skipped. */
+export const paymentEvents = mysqlTable("payment_event", {
+  id: varchar("id", { length: 64 }).primaryKey(),
+  type: varchar("type", { length: 64 }).notNull(),
+  outcome: varchar("outcome", { length: 255 }).notNull(),
+  receivedAt: createdAt(),
+});

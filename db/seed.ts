@@ -7,6 +7,7 @@ import { seedReview } from "./seed/review";
 import { seedPageMap } from "./seed/page-map";
 import { seedPrintReady } from "./seed/print-ready";
 import { seedCredits } from "./seed/credits";
+import { seedPayouts } from "./seed/payouts";
 
 async function main() {
   const demo = await seedDemoPress(db);
@@ -26,6 +27,12 @@ async function main() {
   const credits = await seedCredits(db); // after the map: it picks who is still outstanding by spread
   if (credits)
     console.log(`credits seeded: ${credits.approved} approved, ${credits.outstanding} outstanding`);
+  // After the map: the money follows the accepted pieces (needs the payments fake and the SMTP sink).
+  const payouts = await seedPayouts(db);
+  if (payouts)
+    console.log(
+      `demo payouts seeded: ${payouts.lines} ledger lines, ${payouts.statements} statements mailed`,
+    );
 }
 
 main()

@@ -1,5 +1,6 @@
 /** The terms of an open call in plain words, for contributors. Pure. */
 import { formatCents } from "@/lib/money";
+import { SHARE_SPLIT_LABELS, type ShareSplit } from "@/lib/domain";
 import type { CallTerms } from "@/lib/validations/call";
 
 export const FEE_KIND_LABELS = {
@@ -14,10 +15,13 @@ export function feeText(terms: Pick<CallTerms, "feeKind" | "feeCents">, currency
   return `${formatCents(terms.feeCents, currency)} ${terms.feeKind === "per-page" ? "per page" : "per piece"}`;
 }
 
-/** "10 % of net sales, shared among the contributors" or "No share of sales". */
-export function salesShareText(basisPoints: number): string {
+/**
+ * "10 % of net sales, shared among the contributors" or "No share of sales"; with a split rule,
+ * "10 % of net sales, shared among the contributors by pages in the book".
+ */
+export function salesShareText(basisPoints: number, split?: ShareSplit): string {
   if (basisPoints === 0) return "No share of sales";
-  return `${basisPoints / 100} % of net sales, shared among the contributors`;
+  return `${basisPoints / 100} % of net sales, shared among the contributors${split ? ` ${SHARE_SPLIT_LABELS[split].replace(/^equally among the contributors$/, "equally")}` : ""}`;
 }
 
 /** "2 copies of the printed book", "1 copy …" or "No contributor copies". */

@@ -78,6 +78,41 @@ export const PRINT_METHOD_LABELS: Record<PrintMethod, string> = {
 export const FEE_KINDS = ["none", "per-piece", "per-page"] as const;
 export type FeeKind = (typeof FEE_KINDS)[number];
 
+/** How the contributors' pooled share of net sales is divided among them. */
+export const SHARE_SPLITS = ["per-page", "per-piece", "equal"] as const;
+export type ShareSplit = (typeof SHARE_SPLITS)[number];
+export const SHARE_SPLIT_LABELS: Record<ShareSplit, string> = {
+  "per-page": "by pages in the book",
+  "per-piece": "by pieces in the book",
+  equal: "equally among the contributors",
+};
+
+/** Where copies were sold. */
+export const SALE_CHANNELS = ["event", "shop", "consignment"] as const;
+export type SaleChannel = (typeof SALE_CHANNELS)[number];
+export const SALE_CHANNEL_LABELS: Record<SaleChannel, string> = {
+  event: "Fair or event table",
+  shop: "Online shop",
+  consignment: "Bookshop on consignment",
+};
+
+/** The kinds of line in the payouts ledger. */
+export const LEDGER_KINDS = ["owed", "scheduled", "paid", "reversed"] as const;
+export type LedgerKind = (typeof LEDGER_KINDS)[number];
+export const LEDGER_KIND_LABELS: Record<LedgerKind, string> = {
+  owed: "Owed",
+  scheduled: "Transfer sent",
+  paid: "Paid",
+  reversed: "Cancelled",
+};
+/** What a ledger line is for. */
+export const LEDGER_SOURCES = ["fee", "share", "transfer", "by-hand", "correction"] as const;
+export type LedgerSource = (typeof LEDGER_SOURCES)[number];
+
+/** A transfer attempt: asked for, accepted by the service, or refused. */
+export const TRANSFER_STATES = ["requesting", "sent", "failed"] as const;
+export type TransferState = (typeof TRANSFER_STATES)[number];
+
 export const SLOT_RESERVATIONS = [
   "cover",
   "inside-cover",

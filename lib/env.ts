@@ -34,6 +34,13 @@ const envSchema = z.object({
     .enum(["All", "Trace", "Debug", "Info", "Warning", "Error", "Fatal", "None"])
     .default("Warning"),
   FILE_HOST_URL: z.url().optional(),
+  /** The payments service's secret key; locally the fake's (scripts/launch/app-env.mjs). */
+  STRIPE_SECRET_KEY: z.string().min(8, "must be the payments service's secret key").optional(),
+  /** The signing secret of the app's webhook endpoint. */
+  STRIPE_WEBHOOK_SECRET: z.string().min(8, "must be the webhook signing secret").optional(),
+  /** Set both to talk to a local payments fake over http instead of the real service. */
+  STRIPE_API_HOST: z.string().min(1).optional(),
+  STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
   MAX_UPLOAD_MB: z.coerce.number().positive().max(512).default(32),
   MAX_IMAGE_MEGAPIXELS: z.coerce.number().positive().max(1000).default(120),
   /** The print queue's Redis (BullMQ); the launcher's private one unless given. */

@@ -1,14 +1,17 @@
-// Starts the local stand-ins for hosted services: the upload fake and the SMTP sink.
+// Starts the local stand-ins for hosted services: the upload fake, the SMTP sink and the payments fake.
 //
 // env: UPLOADTHING_TOKEN (required, same as the app), FAKE_UPLOAD_PORT (4590), FAKE_SMTP_PORT (4525),
-//      FAKE_OUTBOX_PORT (4526), FAKE_DATA_DIR (<project>/.data/fakes), FAKE_PUBLIC_URL,
+//      FAKE_OUTBOX_PORT (4526), FAKE_PAYMENTS_PORT (4512), FAKE_PAYMENTS_WEBHOOK_URL,
+//      FAKE_PAYMENTS_WEBHOOK_SECRET, FAKE_PAYMENTS_API_KEY, FAKE_PAYMENTS_RETRY_MS, FAKE_PAYMENTS_BALANCE_CENTS, FAKE_DATA_DIR (<project>/.data/fakes), FAKE_PUBLIC_URL,
 //      FAKE_VERIFY_SIGNATURES=0, FAKE_CALLBACK_TIMEOUT_MS, FAKE_METADATA_TIMEOUT_MS,
 //      FAKE_DEV_STREAM_TIMEOUT_MS, FAKE_LOG=1|2
 //
 // Prints one JSON line on stdout once everything listens:
-//   {"ready":true,"pid":123,"uploads":"http://127.0.0.1:4590","smtp":4525,"outbox":"http://127.0.0.1:4526"}
+//   {"ready":true,"pid":123,"uploads":"http://127.0.0.1:4590","smtp":4525,"outbox":"http://127.0.0.1:4526",
+//    "payments":"http://127.0.0.1:4512"}
 
 import { startSmtpSink } from "./smtp-sink.mjs";
+import { paymentOptionsFromEnv, startPaymentsFake } from "./payments.mjs";
 import { startUploadFake, uploadOptionsFromEnv } from "./uploads.mjs";
 
 function portFromEnv(name, fallback) {
@@ -26,12 +29,14 @@ function fatal(message) {
   process.exit(1);
 }
 
-let uploadPort, smtpPort, outboxPort, uploadOptions;
+let uploadPort, smtpPort, outboxPort, paymentsPort, uploadOptions, paymentOptions;
 try {
   uploadPort = portFromEnv("FAKE_UPLOAD_PORT", 4590);
   smtpPort = portFromEnv("FAKE_SMTP_PORT", 4525);
   outboxPort = portFromEnv("FAKE_OUTBOX_PORT", 4526);
+  paymentsPort = portFromEnv("FAKE_PAYMENTS_PORT", 4512);
   uploadOptions = uploadOptionsFromEnv();
+  paymentOptions = paymentOptionsFromEnv();
 } catch (err) {
   fatal(err.message);
 }
@@ -77,6 +82,15 @@ const sink = await start(
     }),
 );
 
+const payments = await start("payments fake", "FAKE_PAYMENTS_PORT", paymentsPort, () =>
+  startPaymentsFake({
+    ...paymentOptions,
+    port: paymentsPort,
+    dataDir: uploadOptions.dataDir,
+    log: uploadOptions.log,
+  }),
+);
+
 process.stdout.write(
   JSON.stringify({
     ready: true,
@@ -84,6 +98,7 @@ process.stdout.write(
     uploads: uploads.baseUrl,
     smtp: sink.smtpPort,
     outbox: sink.outboxUrl,
+    payments: payments.baseUrl,
   }) + "\n",
 );
 

@@ -33,6 +33,7 @@ export function toCallRecord(row: CallRow): CallRecord {
     feeKind: row.feeKind,
     feeCents: row.feeCents,
     salesShareBasisPoints: row.salesShareBasisPoints,
+    shareSplit: row.shareSplit,
     contributorCopies: row.contributorCopies,
     rightsAsked: row.rightsAsked,
   };

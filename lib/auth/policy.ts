@@ -24,7 +24,11 @@ export const ACTIONS = {
   "contributors:private-data": ["lead", "editor"],
   /** The credits screen: credit lines, asking contributors to approve them, changing a line. */
   "credits:manage": ["lead", "editor"],
+  /** Recording sales and seeing net sales and the contributors' pool. */
+  "sales:record": ["lead", "editor"],
+  /** The ledger of every contributor: closing periods, paying, statements, exports. */
   "payouts:manage": ["lead"],
+  /** A contributor's own ledger lines, statements and payout account. */
   "payouts:view-own": ["contributor"],
 } as const satisfies Record<string, readonly Role[]>;
 

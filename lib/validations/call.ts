@@ -3,8 +3,10 @@ import {
   ANTHOLOGY_STAGES,
   FEE_KINDS,
   PIECE_KINDS,
+  SHARE_SPLITS,
   type FeeKind,
   type PieceKind,
+  type ShareSplit,
 } from "@/lib/domain";
 import { parseCents } from "@/lib/money";
 import { isValidTimeZone, LOCAL_DATE_TIME, utcToZonedLocal, zonedToUtc } from "@/lib/time-zones";
@@ -25,6 +27,8 @@ export interface CallRecord {
   feeKind: FeeKind;
   feeCents: number;
   salesShareBasisPoints: number;
+  /** How the share is divided among the contributors. */
+  shareSplit: ShareSplit;
   contributorCopies: number;
   rightsAsked: string;
 }
@@ -32,7 +36,7 @@ export interface CallRecord {
 /** The payment terms only the lead editor may change (`call:edit-terms`). */
 export type CallTerms = Pick<
   CallRecord,
-  "feeKind" | "feeCents" | "salesShareBasisPoints" | "contributorCopies"
+  "feeKind" | "feeCents" | "salesShareBasisPoints" | "shareSplit" | "contributorCopies"
 >;
 
 /** Terms of a call nobody has written yet: no fee, no share, one contributor copy. */
@@ -40,6 +44,7 @@ export const DEFAULT_TERMS: CallTerms = {
   feeKind: "none",
   feeCents: 0,
   salesShareBasisPoints: 0,
+  shareSplit: "per-page",
   contributorCopies: 1,
 };
 
@@ -118,6 +123,9 @@ export const callInputSchema = z
     feeKind: z.enum(FEE_KINDS, { error: "Choose how the fee is paid" }),
     fee: z.coerce.string().trim().default("0"),
     salesSharePercent: z.coerce.string().trim().default("0"),
+    shareSplit: z
+      .enum(SHARE_SPLITS, { error: "Choose how the share is divided" })
+      .default("per-page"),
     contributorCopies: wholeNumber("Contributor copies", 0, 50),
     rightsAsked: multiLineText(TEXT_CAP.callRights).min(
       10,
@@ -239,6 +247,7 @@ export function callRecordFromInput(
     feeKind: v.feeKind,
     feeCents: v.feeKind === "none" ? 0 : (amountToCents(v.fee) ?? 0),
     salesShareBasisPoints: percentToBasisPoints(v.salesSharePercent) ?? 0,
+    shareSplit: v.shareSplit,
     contributorCopies: v.contributorCopies,
     rightsAsked: v.rightsAsked,
   };
@@ -259,6 +268,7 @@ export function callInputFromRecord(r: CallRecord): CallParsed {
     feeKind: r.feeKind,
     fee: r.feeKind === "none" ? "0" : centsToAmount(r.feeCents),
     salesSharePercent: basisPointsToPercent(r.salesShareBasisPoints),
+    shareSplit: r.shareSplit,
     contributorCopies: r.contributorCopies,
     rightsAsked: r.rightsAsked,
   };
@@ -270,6 +280,7 @@ export function termsOf(r: CallTerms): CallTerms {
     feeKind: r.feeKind,
     feeCents: r.feeCents,
     salesShareBasisPoints: r.salesShareBasisPoints,
+    shareSplit: r.shareSplit,
     contributorCopies: r.contributorCopies,
   };
 }
@@ -279,6 +290,7 @@ export function changedTerms(before: CallTerms, after: CallTerms): string[] {
   const changed: string[] = [];
   if (before.feeKind !== after.feeKind || before.feeCents !== after.feeCents) changed.push("fee");
   if (before.salesShareBasisPoints !== after.salesShareBasisPoints) changed.push("share of sales");
+  if (before.shareSplit !== after.shareSplit) changed.push("how the share is split");
   if (before.contributorCopies !== after.contributorCopies) changed.push("contributor copies");
   return changed;
 }
@@ -311,6 +323,7 @@ export function newCallDefaults(
     feeKind: DEFAULT_TERMS.feeKind,
     fee: "0",
     salesSharePercent: "0",
+    shareSplit: DEFAULT_TERMS.shareSplit,
     contributorCopies: DEFAULT_TERMS.contributorCopies,
     rightsAsked: "One-time printing rights for this edition; every other right stays with you.",
   };

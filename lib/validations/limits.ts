@@ -18,6 +18,10 @@ export const LENGTH = {
   timeZone: 64,
   pieceTitle: 200,
   creditLine: 200,
+  saleLabel: 120,
+  saleNote: 255,
+  periodLabel: 80,
+  paymentReference: 120,
 } as const;
 
 /**

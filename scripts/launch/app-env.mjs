@@ -17,6 +17,10 @@ export const FAKE_UPLOADTHING_TOKEN = Buffer.from(
   }),
 ).toString("base64");
 
+// The payments fake's secret key and webhook signing secret, shared by the app and the fake.
+export const FAKE_STRIPE_SECRET_KEY = "sk_test_quireline_local_fake";
+export const FAKE_STRIPE_WEBHOOK_SECRET = "whsec_quireline_local_fake_0123456789abcdef";
+
 export function authSecret() {
   if (process.env.AUTH_SECRET) return process.env.AUTH_SECRET;
   const file = path.join(DATA, "auth-secret");
@@ -56,12 +60,20 @@ export function appEnv(mode, ports, databaseUrl, secret, redisUrl) {
     UPLOADTHING_UFS_HOST: `localhost:${ports.upload}`,
     UPLOADTHING_UFS_APP_ID_LOCATION: "path",
     UPLOADTHING_LOG_LEVEL: "Warning",
+    STRIPE_SECRET_KEY: FAKE_STRIPE_SECRET_KEY,
+    STRIPE_WEBHOOK_SECRET: FAKE_STRIPE_WEBHOOK_SECRET,
+    STRIPE_API_HOST: "127.0.0.1",
+    STRIPE_API_PORT: String(ports.payments),
     NEXT_TELEMETRY_DISABLED: "1",
     TZ: "UTC",
     NEXT_DIST_DIR: mode === "test" ? ".next-test" : ".next",
     FAKE_UPLOAD_PORT: String(ports.upload),
     FAKE_SMTP_PORT: String(ports.smtp),
     FAKE_OUTBOX_PORT: String(ports.outbox),
+    FAKE_PAYMENTS_PORT: String(ports.payments),
+    FAKE_PAYMENTS_API_KEY: FAKE_STRIPE_SECRET_KEY,
+    FAKE_PAYMENTS_WEBHOOK_SECRET: FAKE_STRIPE_WEBHOOK_SECRET,
+    FAKE_PAYMENTS_WEBHOOK_URL: `http://127.0.0.1:${ports.app}/api/payments/webhook`,
     FAKE_DATA_DIR: path.join(DATA, mode === "test" ? "fakes-test" : "fakes"),
     QUIRELINE_PRIVATE_DB: db.private ? "1" : "0",
   };

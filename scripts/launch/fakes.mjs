@@ -12,7 +12,7 @@ export async function startFakes(mode, env) {
   if (mode === "test") fs.rmSync(env.FAKE_DATA_DIR, { recursive: true, force: true });
   fs.mkdirSync(env.FAKE_DATA_DIR, { recursive: true });
   step(
-    `starting the local fakes (uploads :${env.FAKE_UPLOAD_PORT}, SMTP :${env.FAKE_SMTP_PORT}, outbox :${env.FAKE_OUTBOX_PORT})`,
+    `starting the local fakes (uploads :${env.FAKE_UPLOAD_PORT}, SMTP :${env.FAKE_SMTP_PORT}, outbox :${env.FAKE_OUTBOX_PORT}, payments :${env.FAKE_PAYMENTS_PORT})`,
   );
 
   const logFile = mode === "test" ? path.join(RESULTS, "fakes.log") : null;

@@ -15,10 +15,27 @@ const redisPort = Number.parseInt(process.env.QUIRELINE_REDIS_PORT ?? "", 10) ||
 const withRedis = (ports) => (redisPort ? { ...ports, redis: redisPort } : ports);
 
 export const PORTS = {
-  start: withRedis({ app: 3000, upload: 4590, smtp: 4525, outbox: 4526, redis: 6390 }),
-  dev: withRedis({ app: 3000, upload: 4590, smtp: 4525, outbox: 4526, redis: 6390 }),
+  start: withRedis({
+    app: 3000,
+    upload: 4590,
+    smtp: 4525,
+    outbox: 4526,
+    payments: 4512,
+    redis: 6390,
+  }),
+  dev: withRedis({
+    app: 3000,
+    upload: 4590,
+    smtp: 4525,
+    outbox: 4526,
+    payments: 4512,
+    redis: 6390,
+  }),
   test: withRedis(
-    shift({ app: 3100, upload: 4690, smtp: 4625, outbox: 4626, redis: 6490 }, testOffset),
+    shift(
+      { app: 3100, upload: 4690, smtp: 4625, outbox: 4626, payments: 4612, redis: 6490 },
+      testOffset,
+    ),
   ),
 };
 const PORT_OWNERS = {
@@ -32,6 +49,8 @@ const PORT_OWNERS = {
   4626: "the outbox API of a Quireline `npm test`",
   6390: "the print queue's Redis of a Quireline `npm start` or `npm run dev`",
   6490: "the print queue's Redis of a Quireline `npm test`",
+  4512: "the payments fake of a Quireline `npm start`",
+  4612: "the payments fake of a Quireline `npm test`",
 };
 
 function portFree(port, host) {
@@ -77,6 +96,7 @@ export async function checkPorts(ports) {
     smtp: "SMTP sink",
     outbox: "outbox API",
     redis: "print queue's Redis",
+    payments: "payments fake",
   };
   const problems = [];
   for (const [key, port] of Object.entries(ports)) {

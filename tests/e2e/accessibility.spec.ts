@@ -101,3 +101,22 @@ test("the lead's screens pass axe", async ({ page }) => {
   await expect(page.getByTestId("view-sheets")).toHaveAttribute("aria-pressed", "true");
   await expectNoSeriousViolations(page, "the map, as printed");
 });
+
+test("the sales and payouts screens pass axe", async ({ page }) => {
+  const lead = demoAccount("odile");
+  await signInWithPassword(page, lead.email, lead.password);
+  await page.goto(`/studio/${slug}/sales`);
+  await expect(page.getByTestId("sales")).toBeVisible();
+  await expectNoSeriousViolations(page, "sales");
+  await page.goto(`/studio/${slug}/payouts`);
+  await expect(page.getByTestId("person-ledger").first()).toBeVisible();
+  await page.locator("details summary").first().click();
+  await expectNoSeriousViolations(page, "payouts");
+
+  await page.context().clearCookies();
+  const tomasz = demoAccount("tomasz");
+  await signInWithPassword(page, tomasz.email, tomasz.password);
+  await page.goto(`/studio/${slug}/my-payouts`);
+  await expect(page.getByTestId("my-totals")).toBeVisible();
+  await expectNoSeriousViolations(page, "my payouts");
+});

@@ -153,3 +153,21 @@ test("the lead's screens fit a phone", async ({ page }) => {
   await expect(page.getByTestId("produce")).toBeDisabled();
   await expectNoSidewaysScroll(page, "the print files");
 });
+
+test("the sales and payouts screens fit a phone", async ({ page }) => {
+  const lead = demoAccount("odile");
+  await signInWithPassword(page, lead.email, lead.password);
+  await page.goto(`/studio/${slug}/sales`);
+  await expect(page.getByTestId("sales")).toBeVisible();
+  await expectNoSidewaysScroll(page, "sales");
+  await page.goto(`/studio/${slug}/payouts`);
+  await expect(page.getByTestId("person-ledger").first()).toBeVisible();
+  await expectNoSidewaysScroll(page, "payouts");
+
+  await page.context().clearCookies();
+  const bea = demoAccount("bea");
+  await signInWithPassword(page, bea.email, bea.password);
+  await page.goto(`/studio/${slug}/my-payouts`);
+  await expect(page.getByTestId("my-totals")).toBeVisible();
+  await expectNoSidewaysScroll(page, "my payouts");
+});

@@ -138,18 +138,21 @@ describe("schema round-trips on MariaDB", () => {
     const soldOn = new Date("2026-11-14T18:30:00.000Z");
     await db.insert(schema.sales).values({
       anthologyId: anthology.id,
+      channel: "event",
       label: "Harbour fair",
       copies: 40,
-      grossCents: 4_294_967_301,
-      costsCents: 1999,
+      unitPriceCents: 4_294_967_301,
+      recoverableCostsCents: 1999,
+      currency: "USD",
+      recordedBy: lead,
       soldOn,
     });
     const [sale] = await db
       .select()
       .from(schema.sales)
       .where(eq(schema.sales.anthologyId, anthology.id));
-    expect(sale!.grossCents).toBe(4_294_967_301);
-    expect(Number.isInteger(sale!.costsCents)).toBe(true);
+    expect(sale!.unitPriceCents).toBe(4_294_967_301);
+    expect(Number.isInteger(sale!.recoverableCostsCents)).toBe(true);
     expect(sale!.soldOn.toISOString()).toBe("2026-11-14T18:30:00.000Z");
   });
 });

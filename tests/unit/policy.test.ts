@@ -31,6 +31,7 @@ const TABLE: Record<Action, string> = {
   "finishing:mark-done": "LEF",
   "contributors:private-data": "LE",
   "credits:manage": "LE",
+  "sales:record": "LE",
   "payouts:manage": "L",
   "payouts:view-own": "C",
 };
@@ -60,6 +61,8 @@ describe("role rules", () => {
   it("keeps finishers away from contributors' private data and money", () => {
     expect(can("finisher", "contributors:private-data")).toBe(false);
     expect(can("finisher", "payouts:manage")).toBe(false);
+    expect(can("finisher", "sales:record")).toBe(false);
+    expect(can("finisher", "payouts:view-own")).toBe(false);
   });
 
   it("lets only leads invite leads", () => {

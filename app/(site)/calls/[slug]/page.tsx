@@ -49,7 +49,7 @@ export default async function PublicCallPage({ params }: Props) {
   ];
   const terms: [string, string][] = [
     ["Fee", feeText(call, anthology.currency)],
-    ["Share of sales", salesShareText(call.salesShareBasisPoints)],
+    ["Share of sales", salesShareText(call.salesShareBasisPoints, call.shareSplit)],
     ["Contributor copies", copiesText(call.contributorCopies)],
   ];
 

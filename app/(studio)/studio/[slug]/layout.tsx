@@ -14,6 +14,9 @@ const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "/map", label: "Page map", action: "map:view" },
   { href: "/print", label: "Print files", action: "print:view" },
   { href: "/credits", label: "Credits", action: "credits:manage" },
+  { href: "/sales", label: "Sales", action: "sales:record" },
+  { href: "/payouts", label: "Payouts", action: "payouts:manage" },
+  { href: "/my-payouts", label: "My payouts", action: "payouts:view-own" },
   { href: "/members", label: "People", action: "members:invite" },
 ];
 

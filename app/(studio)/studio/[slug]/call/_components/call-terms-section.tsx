@@ -3,7 +3,7 @@
 import { useWatch } from "react-hook-form";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { FEE_KIND_LABELS } from "@/lib/call-terms";
-import { FEE_KINDS } from "@/lib/domain";
+import { FEE_KINDS, SHARE_SPLIT_LABELS, SHARE_SPLITS } from "@/lib/domain";
 import type { CallParsed } from "@/lib/validations/call";
 import { useCallForm } from "./call-form-context";
 import { TermsReadOnly } from "./terms-read-only";
@@ -74,6 +74,25 @@ export function CallTermsSection({
               inputMode="decimal"
               className={inputClass}
             />
+          </Field>
+          <Field
+            id="shareSplit"
+            label="Share divided"
+            hint="Largest remainder: the parts add up to the share to the cent."
+            error={e.shareSplit?.message}
+          >
+            <select
+              {...register("shareSplit")}
+              defaultValue={initial.shareSplit}
+              {...describedBy("shareSplit", e.shareSplit?.message)}
+              className={`${inputClass} bg-white`}
+            >
+              {SHARE_SPLITS.map((split) => (
+                <option key={split} value={split}>
+                  {SHARE_SPLIT_LABELS[split]}
+                </option>
+              ))}
+            </select>
           </Field>
           <Field
             id="contributorCopies"

@@ -14,7 +14,9 @@ export function TermsReadOnly({ initial, currency }: { initial: CallParsed; curr
           )}
         </dd>
         <dt className="text-ink-soft">Share of sales</dt>
-        <dd>{salesShareText(percentToBasisPoints(initial.salesSharePercent) ?? 0)}</dd>
+        <dd>
+          {salesShareText(percentToBasisPoints(initial.salesSharePercent) ?? 0, initial.shareSplit)}
+        </dd>
         <dt className="text-ink-soft">Contributor copies</dt>
         <dd>{copiesText(Number(initial.contributorCopies))}</dd>
       </dl>

@@ -1,0 +1,34 @@
+import { PaymentProblem, verifyWebhook } from "@/server/payments";
+import { handlePaymentEvent } from "@/server/payouts";
+
+/**
+ * The payments service's webhooks. No session: the Stripe-Signature over the raw body is the
+ * authority (the SDK's constructEvent). 400 for a bad signature; 200 for a replay (already seen);
+ * 500 on a failure, so the service tries again.
+ */
+export async function POST(request: Request) {
+  // Events are a few kilobytes; anything far larger is not one.
+  if (Number(request.headers.get("content-length") ?? 0) > 512 * 1024)
+    return Response.json({ error: "The body is too large for an event." }, { status: 413 });
+  const raw = await request.text();
+  if (raw.length > 512 * 1024)
+    return Response.json({ error: "The body is too large for an event." }, { status: 413 });
+  let event;
+  try {
+    event = verifyWebhook(raw, request.headers.get("stripe-signature"));
+  } catch (error) {
+    if (error instanceof PaymentProblem)
+      return Response.json({ error: error.message }, { status: error.status });
+    throw error;
+  }
+  try {
+    const result = await handlePaymentEvent(event);
+    return Response.json({ received: true, ...result });
+  } catch (error) {
+    console.error("payments webhook failed", error);
+    return Response.json(
+      { error: "Could not apply the event; it will be retried." },
+      { status: 500 },
+    );
+  }
+}
