@@ -1,5 +1,6 @@
 import "server-only";
 import net from "node:net";
+import IORedis from "ioredis";
 import { pool } from "@/db";
 import { env } from "@/lib/env";
 import type { ServiceReport } from "@/lib/health";
@@ -75,12 +76,37 @@ export const probeMail = () =>
       }),
   );
 
+/** The print queue's Redis answers PING with PONG; a fresh connection that does not retry. */
+export const probeQueue = () =>
+  timed(async (signal) => {
+    const redis = new IORedis(env().REDIS_URL, {
+      lazyConnect: true,
+      maxRetriesPerRequest: 0,
+      retryStrategy: () => null,
+      connectTimeout: PROBE_TIMEOUT_MS,
+      enableOfflineQueue: false,
+    });
+    redis.on("error", () => undefined);
+    signal.addEventListener("abort", () => redis.disconnect());
+    try {
+      await redis.connect();
+      const answer = await redis.ping();
+      if (answer !== "PONG") throw new Error(`unexpected answer to PING`);
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      throw new Error(code ? `cannot connect (${code})` : "cannot connect");
+    } finally {
+      redis.disconnect();
+    }
+  });
+
 /** Every probe, run at once. */
 export async function probeAll(): Promise<Record<string, ServiceReport>> {
-  const [database, uploads, mail] = await Promise.all([
+  const [database, uploads, mail, queue] = await Promise.all([
     probeDatabase(),
     probeUploads(),
     probeMail(),
+    probeQueue(),
   ]);
-  return { database, uploads, mail };
+  return { database, uploads, mail, queue };
 }

@@ -25,12 +25,16 @@ describe("GET /api/health", () => {
     };
     expect(body.status).toBe("ok");
     expect(body.down).toEqual([]);
-    expect(Object.keys(body.services).sort()).toEqual(["database", "mail", "uploads"]);
+    expect(Object.keys(body.services).sort()).toEqual(["database", "mail", "queue", "uploads"]);
     expect(JSON.stringify(body)).not.toMatch(/127\.0\.0\.1|password|mysql:/);
   });
 
   it("answers 503 and names the services that are down", async () => {
-    const [mailPort, uploadPort] = [await closedPort(), await closedPort()];
+    const [mailPort, uploadPort, redisPort] = [
+      await closedPort(),
+      await closedPort(),
+      await closedPort(),
+    ];
     vi.resetModules();
     vi.doMock("@/lib/env", async (importOriginal) => {
       const real = await importOriginal<typeof import("@/lib/env")>();
@@ -41,6 +45,7 @@ describe("GET /api/health", () => {
           ...e,
           SMTP_PORT: mailPort,
           UPLOADTHING_INGEST_URL: `http://127.0.0.1:${uploadPort}`,
+          REDIS_URL: `redis://127.0.0.1:${redisPort}`,
         }),
       };
     });
@@ -53,9 +58,10 @@ describe("GET /api/health", () => {
       services: Record<string, { state: string; reason?: string }>;
     };
     expect(body.status).toBe("degraded");
-    expect(body.down).toEqual(["mail", "uploads"]);
+    expect(body.down).toEqual(["mail", "queue", "uploads"]);
     expect(body.services.database!.state).toBe("up");
     expect(body.services.mail!.reason).toContain("cannot connect");
+    expect(body.services.queue!.reason).toContain("cannot connect");
     // Reasons never carry an address.
     expect(JSON.stringify(body)).not.toMatch(/127\.0\.0\.1/);
     vi.doUnmock("@/lib/env");
