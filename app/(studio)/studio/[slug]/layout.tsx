@@ -12,6 +12,9 @@ const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "/submissions", label: "Submissions", action: "pieces:review" },
   { href: "/my-pieces", label: "My pieces", action: "pieces:view-own" },
   { href: "/map", label: "Page map", action: "map:view" },
+  { href: "/run", label: "Print run", action: "run:view" },
+  { href: "/finishing", label: "Finishing", action: "finishing:view" },
+  { href: "/stock", label: "Stock", action: "stock:view" },
   { href: "/members", label: "People", action: "members:invite" },
 ];
 
