@@ -5,6 +5,7 @@ import { seedOpenCall } from "./seed/open-call";
 import { seedSubmissions } from "./seed/submissions";
 import { seedReview } from "./seed/review";
 import { seedPageMap } from "./seed/page-map";
+import { seedPrintRun } from "./seed/print-run";
 
 async function main() {
   const demo = await seedDemoPress(db);
@@ -19,6 +20,9 @@ async function main() {
   const map = await seedPageMap(db);
   if (map)
     console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
+  // After the map: the run's counts come from it.
+  const run = await seedPrintRun(db);
+  if (run) console.log(`print run seeded: ${run.events} events, ${run.batches} batches`);
 }
 
 main()

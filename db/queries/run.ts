@@ -403,9 +403,17 @@ export async function loadFinishing(
 
 /* ---------- Stock: one locked row per anthology, movements summed under the lock ---------- */
 
-/** Locks the anthology's stock row (creating it the first time) and reads the counts under the lock. */
+/**
+ * Creates the anthology's stock row outside any transaction. Inside one, INSERT IGNORE of an
+ * existing row takes a shared lock, and two movements holding it while both ask for the
+ * exclusive lock would deadlock; on its own it commits at once.
+ */
+async function ensureStockRow(anthologyId: number): Promise<void> {
+  await db.insert(schema.runStock).ignore().values({ anthologyId, movementCount: 0 });
+}
+
+/** Locks the anthology's stock row (ensureStockRow first) and reads the counts under the lock. */
 async function lockStock(tx: Tx, anthologyId: number) {
-  await tx.insert(schema.runStock).ignore().values({ anthologyId, movementCount: 0 });
   await tx
     .select()
     .from(schema.runStock)
@@ -414,7 +422,10 @@ async function lockStock(tx: Tx, anthologyId: number) {
   const rows = await tx
     .select({ kind: sm.kind, batchId: sm.batchId, sheetSets: sm.sheetSets, copies: sm.copies })
     .from(sm)
-    .where(eq(sm.anthologyId, anthologyId));
+    .where(eq(sm.anthologyId, anthologyId))
+    // A locking read (MariaDB has no FOR SHARE) sees the latest committed movements, not the
+    // snapshot an earlier plain read in this transaction may have fixed (repeatable read).
+    .for("update");
   return stockCounts(rows as Movement[]);
 }
 
@@ -467,6 +478,7 @@ export async function recordMovement(
   user: SessionUser,
   request: MovementRequest & { reason: string },
 ): Promise<void> {
+  await ensureStockRow(anthology.id);
   await db.transaction(async (tx) => {
     await assertBatch(tx, anthology.id, request.batchId);
     await appendMovement(tx, anthology.id, user, movementOf(request), { reason: request.reason });
@@ -475,6 +487,7 @@ export async function recordMovement(
 
 /** "Print all sheets at once": every batch's sheet sets recorded as printed, in one go. */
 export async function recordAllPrinted(anthology: Anthology, user: SessionUser): Promise<number> {
+  await ensureStockRow(anthology.id);
   return db.transaction(async (tx) => {
     const batches = await tx.select().from(fb).where(eq(fb.anthologyId, anthology.id));
     const have = await lockStock(tx, anthology.id);
@@ -511,6 +524,7 @@ export async function tickStep(
   done: boolean,
 ): Promise<void> {
   const { checklist } = await bookletOf(anthology);
+  await ensureStockRow(anthology.id);
   await db.transaction(async (tx) => {
     const batch = await assertBatch(tx, anthology.id, batchId);
     if (!batch) throw new Refusal(404, "There is no such batch.");
@@ -604,6 +618,7 @@ export async function updateContributorCopy(
   id: number,
   input: { delivery: "collect" | "post"; eventId: number | null; done: boolean },
 ): Promise<void> {
+  await ensureStockRow(anthology.id);
   await db.transaction(async (tx) => {
     const [row] = await tx
       .select()
