@@ -83,7 +83,7 @@ test("a contributor's screens fit a phone", async ({ page }) => {
 });
 
 test("the lead's screens fit a phone", async ({ page }) => {
-  test.slow(); // eight screens in one walk
+  test.slow(); // eleven screens in one walk
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   await expectNoSidewaysScroll(page, "the studio home");
@@ -139,4 +139,16 @@ test("the lead's screens fit a phone", async ({ page }) => {
   await page.getByTestId("view-sheets").click();
   await expect(page.getByTestId("view-sheets")).toHaveAttribute("aria-pressed", "true");
   await expectNoSidewaysScroll(page, "the map, as printed");
+
+  await page.goto(`/studio/${slug}/run`);
+  await expect(page.getByTestId("run-summary")).toBeVisible();
+  await expectNoSidewaysScroll(page, "the print run planner");
+
+  await page.goto(`/studio/${slug}/finishing`);
+  await expect(page.getByTestId("batch").first()).toBeVisible();
+  await expectNoSidewaysScroll(page, "the finishing batches");
+
+  await page.goto(`/studio/${slug}/stock`);
+  await expect(page.getByTestId("stock-counts")).toBeVisible();
+  await expectNoSidewaysScroll(page, "the stock");
 });
