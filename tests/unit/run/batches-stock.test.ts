@@ -221,3 +221,14 @@ describe("bad input gets a field message", () => {
     expect(parseQuantities("10, -5")).toBeUndefined();
   });
 });
+
+describe("prices belong to the collective", () => {
+  it("one press name however it is spaced or cased; an anthology without one keeps its lead's lists", async () => {
+    const { pressKeyOf } = await import("@/lib/run/press");
+    expect(pressKeyOf({ pressName: "Marrowbend Print Collective", createdBy: "u1" })).toBe(
+      pressKeyOf({ pressName: "  marrowbend  print collective ", createdBy: "u2" }),
+    );
+    expect(pressKeyOf({ pressName: null, createdBy: "u1" })).toBe("lead:u1");
+    expect(pressKeyOf({ pressName: "  ", createdBy: "u1" })).toBe("lead:u1");
+  });
+});
