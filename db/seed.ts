@@ -22,7 +22,7 @@ async function main() {
     console.log(`page map seeded: ${map.placed} pieces placed, ${map.waiting} waiting in the tray`);
   // After the map: the run's counts come from it.
   const run = await seedPrintRun(db);
-  if (run) console.log(`print run seeded: ${run.events} events, ${run.batches} batches`);
+  if (run) console.log(`demo print run seeded: ${run.events} events, ${run.batches} batches`);
 }
 
 main()

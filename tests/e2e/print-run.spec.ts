@@ -24,11 +24,14 @@ test("the lead weighs quantities: a changed price moves the sentence, the chart 
   const copyShopCell = page.locator('tr[data-copies="10"] td[data-option="copy-shop"]');
   const before = await copyShopCell.textContent();
   const beforeSummary = await summary.textContent();
-  const chartBefore = await page.getByTestId("cost-chart").locator("svg").innerHTML();
+  const chartBefore = await page
+    .getByTestId("cost-chart")
+    .locator('svg[role="application"]')
+    .innerHTML();
   await page.locator("#price-copyShopSide").fill("0.01");
   await expect(copyShopCell).not.toHaveText(before ?? "");
   await expect
-    .poll(() => page.getByTestId("cost-chart").locator("svg").innerHTML())
+    .poll(() => page.getByTestId("cost-chart").locator('svg[role="application"]').innerHTML())
     .not.toBe(chartBefore);
   await expect(summary).not.toHaveText(beforeSummary ?? "");
 

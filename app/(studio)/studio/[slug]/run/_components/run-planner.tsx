@@ -244,6 +244,36 @@ export function RunPlanner({ slug, initial }: { slug: string; initial: RunPayloa
         </dl>
       </section>
 
+      <section aria-labelledby="compare-heading" className="flex flex-col gap-4" aria-live="polite">
+        <h2 id="compare-heading" className="text-xl font-bold">
+          Ourselves, copy shop or print shop
+        </h2>
+        {!shown ? (
+          <Notice tone="info" testId="run-empty">
+            Enter at least one quantity and sound prices to see the comparison.
+          </Notice>
+        ) : (
+          <>
+            {!sound ? (
+              <Notice tone="warn" testId="run-stale">
+                Some fields need attention; the figures below are from the last sound entries.
+              </Notice>
+            ) : null}
+            <p className="text-base font-semibold" data-testid="run-summary">
+              {shown.comparison.summary}
+            </p>
+            {shown.comparison.breakEvens.length > 0 ? (
+              <p className="text-sm text-ink-soft" data-testid="run-break-evens">
+                Break-even:{" "}
+                {shown.comparison.breakEvens.map((b) => `${b.copies} copies`).join(" and ")}.
+              </p>
+            ) : null}
+            <CostChart plan={shown} currency={currency} />
+            <CostTable plan={shown} currency={currency} duplicator={counts.duplicator} />
+          </>
+        )}
+      </section>
+
       <section aria-labelledby="weigh-heading" className="flex flex-col gap-4">
         <h2 id="weigh-heading" className="text-xl font-bold">
           Quantities and finishing time
@@ -517,7 +547,7 @@ export function RunPlanner({ slug, initial }: { slug: string; initial: RunPayloa
             </p>
           ) : null}
           {tiers.map((t, i) => (
-            <div key={i} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
+            <div key={i} className="grid grid-cols-2 items-end gap-2 sm:grid-cols-[1fr_1fr_auto]">
               <Field
                 id={`tier-${i}-copies`}
                 label={`Tier ${i + 1}: copies`}
@@ -558,6 +588,7 @@ export function RunPlanner({ slug, initial }: { slug: string; initial: RunPayloa
                 <Button
                   type="button"
                   variant="quiet"
+                  className="col-span-2 sm:col-span-1"
                   onClick={() => setTiers((all) => all.filter((_, j) => j !== i))}
                 >
                   Remove tier {i + 1}
@@ -585,36 +616,6 @@ export function RunPlanner({ slug, initial }: { slug: string; initial: RunPayloa
             </div>
           ) : null}
         </fieldset>
-      </section>
-
-      <section aria-labelledby="compare-heading" className="flex flex-col gap-4" aria-live="polite">
-        <h2 id="compare-heading" className="text-xl font-bold">
-          Ourselves, copy shop or print shop
-        </h2>
-        {!shown ? (
-          <Notice tone="info" testId="run-empty">
-            Enter at least one quantity and sound prices to see the comparison.
-          </Notice>
-        ) : (
-          <>
-            {!sound ? (
-              <Notice tone="warn" testId="run-stale">
-                Some fields need attention; the figures below are from the last sound entries.
-              </Notice>
-            ) : null}
-            <p className="text-base font-semibold" data-testid="run-summary">
-              {shown.comparison.summary}
-            </p>
-            {shown.comparison.breakEvens.length > 0 ? (
-              <p className="text-sm text-ink-soft" data-testid="run-break-evens">
-                Break-even:{" "}
-                {shown.comparison.breakEvens.map((b) => `${b.copies} copies`).join(" and ")}.
-              </p>
-            ) : null}
-            <CostChart plan={shown} currency={currency} />
-            <CostTable plan={shown} currency={currency} duplicator={counts.duplicator} />
-          </>
-        )}
       </section>
 
       {status ? (
