@@ -274,10 +274,14 @@ export function StockScreen({ slug, initial }: { slug: string; initial: StockPay
                   <span className="min-w-[10rem] font-semibold">
                     {c.name}: {c.quantity}
                   </span>
-                  <Field id={`copy-${c.id}-delivery`} label="How">
+                  <Field
+                    id={`copy-${c.id}-delivery`}
+                    label="How"
+                    className="w-full min-w-0 sm:w-80"
+                  >
                     <select
                       {...describedBy(`copy-${c.id}-delivery`)}
-                      className={inputClass}
+                      className={`${inputClass} w-full`}
                       value={c.delivery === "post" ? "post" : (c.eventId ?? "collect")}
                       disabled={!canMove || busy || c.doneAt !== null}
                       onChange={(e) =>
