@@ -7,6 +7,7 @@ import {
   boolean,
   char,
   customType,
+  date,
   datetime,
   double,
   index,
@@ -55,6 +56,9 @@ import {
   type SlotReservation,
 } from "../lib/domain";
 import type { LedgerComputation } from "../lib/payouts";
+import type { EventKind, PrintMode } from "../lib/run/batches";
+import type { PriceList, QuoteTier, StepTimings } from "../lib/run/prices";
+import type { StockKind } from "../lib/run/stock";
 import { LENGTH } from "../lib/validations/limits";
 
 const id = () => bigint("id", { mode: "number", unsigned: true }).autoincrement().primaryKey();
@@ -505,8 +509,88 @@ export const emailLog = mysqlTable(
   (t) => [index("email_log_anthology").on(t.anthologyId)],
 );
 
-/* ---------- After the print run: credits, copies, money ---------- */
+/* ---------- Print run: prices, plan, events, batches, stock ---------- */
 
+/**
+ * A collective's prices, kept by press (the anthology's press name, or its lead when it has
+ * none) so the next anthology reuses them. Cents for a pack of a quantity (lib/run/prices.ts).
+ */
+export const priceLists = mysqlTable(
+  "price_list",
+  {
+    id: id(),
+    pressKey: varchar("press_key", { length: LENGTH.pressKey }).notNull(),
+    name: varchar("name", { length: 120 }).notNull(),
+    currency: char("currency", { length: 3 }).notNull(),
+    prices: json("prices").$type<PriceList>().notNull(),
+    updatedBy: userRef("updated_by").notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("price_list_name").on(t.pressKey, t.name)],
+);
+
+/** A print shop's quote for finished copies, in tiers by quantity, kept by press like the price lists. */
+export const shopQuotes = mysqlTable(
+  "shop_quote",
+  {
+    id: id(),
+    pressKey: varchar("press_key", { length: LENGTH.pressKey }).notNull(),
+    shopName: varchar("shop_name", { length: 120 }).notNull(),
+    currency: char("currency", { length: 3 }).notNull(),
+    /** Ascending by copies; the first is the minimum order. */
+    tiers: json("tiers").$type<QuoteTier[]>().notNull(),
+    turnaroundDays: int("turnaround_days").notNull(),
+    updatedBy: userRef("updated_by").notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("shop_quote_name").on(t.pressKey, t.shopName)],
+);
+
+/** An anthology's run plan: the quantities weighed, which prices and quote, finishing timings and hours. */
+export const runPlans = mysqlTable("run_plan", {
+  id: id(),
+  anthologyId: ref("anthology_id")
+    .notNull()
+    .unique()
+    .references(() => anthologies.id, { onDelete: "cascade" }),
+  priceListId: ref("price_list_id").references(() => priceLists.id, { onDelete: "set null" }),
+  shopQuoteId: ref("shop_quote_id").references(() => shopQuotes.id, { onDelete: "set null" }),
+  quantities: json("quantities").$type<number[]>().notNull(),
+  /** Minutes per finishing step, keyed by step id (lib/run/checklist.ts). */
+  timings: json("timings").$type<StepTimings>().notNull(),
+  /** The finishers' time, all together, in minutes a week. */
+  minutesPerWeek: int("minutes_per_week").notNull().default(0),
+  printMode: varchar("print_mode", { length: 16 })
+    .$type<PrintMode>()
+    .notNull()
+    .default("all-at-once"),
+  updatedAt: updatedAt(),
+});
+
+/** A day copies are wanted for: a fair, a launch, a mail-out. */
+export const runEvents = mysqlTable(
+  "run_event",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 120 }).notNull(),
+    kind: varchar("kind", { length: 16 }).$type<EventKind>().notNull(),
+    /** The calendar day in the anthology's zone (YYYY-MM-DD). */
+    onDate: date("on_date", { mode: "string" }).notNull(),
+    copies: int("copies").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("run_event_anthology").on(t.anthologyId, t.onDate)],
+);
+
+/**
+ * Contributor copies owed under the call's terms: how many, how they reach the contributor
+ * (collected at an event or posted) and when they were handed over or sent.
+ */
 export const contributorCopies = mysqlTable(
   "contributor_copy",
   {
@@ -516,23 +600,86 @@ export const contributorCopies = mysqlTable(
       .references(() => anthologies.id, { onDelete: "cascade" }),
     contributorId: userRef("contributor_id").notNull(),
     quantity: int("quantity").notNull(),
-    delivery: varchar("delivery", { length: 16 }).notNull().default("hand"),
+    /** "collect" at an event or "post". */
+    delivery: varchar("delivery", { length: 16 }).notNull().default("collect"),
+    eventId: ref("event_id").references(() => runEvents.id, { onDelete: "set null" }),
     handedOverAt: datetime("handed_over_at", { mode: "date" }),
+    doneBy: userRef("done_by"),
     note: text("note"),
   },
   (t) => [uniqueIndex("contributor_copy_person").on(t.anthologyId, t.contributorId)],
 );
 
-export const finishingBatches = mysqlTable("finishing_batch", {
-  id: id(),
+/** Copies finished together for one event; its checklist ticks are finishing_tick rows. */
+export const finishingBatches = mysqlTable(
+  "finishing_batch",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    label: varchar("label", { length: 120 }).notNull(),
+    copies: int("copies").notNull(),
+    position: int("position").notNull().default(0),
+    eventId: ref("event_id").references(() => runEvents.id, { onDelete: "set null" }),
+    /** The day the batch is wanted by, in the anthology's zone. */
+    dueOn: date("due_on", { mode: "string" }),
+    doneAt: datetime("done_at", { mode: "date" }),
+    doneBy: userRef("done_by"),
+  },
+  (t) => [index("finishing_batch_anthology").on(t.anthologyId, t.position)],
+);
+
+/** One checklist step of a batch ticked done, by whom and when. */
+export const finishingTicks = mysqlTable(
+  "finishing_tick",
+  {
+    batchId: ref("batch_id")
+      .notNull()
+      .references(() => finishingBatches.id, { onDelete: "cascade" }),
+    stepId: varchar("step_id", { length: 24 }).notNull(),
+    doneBy: userRef("done_by").notNull(),
+    doneAt: datetime("done_at", { mode: "date", fsp: 3 }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.batchId, t.stepId] })],
+);
+
+/**
+ * One row per anthology, locked (SELECT … FOR UPDATE) by every stock movement so concurrent
+ * movements are checked one after another; the counts themselves are sums of stock_movement.
+ */
+export const runStock = mysqlTable("run_stock", {
   anthologyId: ref("anthology_id")
-    .notNull()
+    .primaryKey()
     .references(() => anthologies.id, { onDelete: "cascade" }),
-  label: varchar("label", { length: 120 }).notNull(),
-  copies: int("copies").notNull(),
-  dueOn: datetime("due_on", { mode: "date" }),
-  doneAt: datetime("done_at", { mode: "date" }),
+  movementCount: int("movement_count").notNull().default(0),
 });
+
+/** Append-only: printed sheet sets per batch and finished copies, each change with its reason and person. */
+export const stockMovements = mysqlTable(
+  "stock_movement",
+  {
+    id: id(),
+    anthologyId: ref("anthology_id")
+      .notNull()
+      .references(() => anthologies.id, { onDelete: "cascade" }),
+    // Batches with movements are never re-planned away (db/queries/run.ts); the cascade only follows a deleted anthology.
+    batchId: ref("batch_id").references(() => finishingBatches.id, { onDelete: "cascade" }),
+    kind: varchar("kind", { length: 24 }).$type<StockKind>().notNull(),
+    /** Change to the batch's printed, unfinished sheet sets (one set = one copy's sheets). */
+    sheetSets: int("sheet_sets").notNull().default(0),
+    /** Change to finished copies on hand. */
+    copies: int("copies").notNull().default(0),
+    reason: varchar("reason", { length: 500 }).notNull().default(""),
+    eventId: ref("event_id").references(() => runEvents.id, { onDelete: "set null" }),
+    contributorCopyId: ref("contributor_copy_id"),
+    actorId: userRef("actor_id").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("stock_movement_anthology").on(t.anthologyId, t.batchId)],
+);
+
+/* ---------- After the print run: money ---------- */
 
 /**
  * One sale, or one batch of sales, at an event or through a channel. Amounts are integer cents in

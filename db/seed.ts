@@ -8,6 +8,7 @@ import { seedPageMap } from "./seed/page-map";
 import { seedPrintReady } from "./seed/print-ready";
 import { seedCredits } from "./seed/credits";
 import { seedPayouts } from "./seed/payouts";
+import { seedPrintRun } from "./seed/print-run";
 
 async function main() {
   const demo = await seedDemoPress(db);
@@ -27,6 +28,9 @@ async function main() {
   const credits = await seedCredits(db); // after the map: it picks who is still outstanding by spread
   if (credits)
     console.log(`credits seeded: ${credits.approved} approved, ${credits.outstanding} outstanding`);
+  // After the map: the run's counts come from it.
+  const run = await seedPrintRun(db);
+  if (run) console.log(`demo print run seeded: ${run.events} events, ${run.batches} batches`);
   // After the map: the money follows the accepted pieces (needs the payments fake and the SMTP sink).
   const payouts = await seedPayouts(db);
   if (payouts)

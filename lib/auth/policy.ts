@@ -21,6 +21,12 @@ export const ACTIONS = {
   "print:produce": ["lead", "editor"],
   "print:view": ["lead", "editor", "finisher"],
   "finishing:mark-done": ["lead", "editor", "finisher"],
+  "run:view": ["lead", "editor"],
+  "run:plan": ["lead", "editor"],
+  "finishing:view": ["lead", "editor", "finisher"],
+  "finishing:tick": ["lead", "editor", "finisher"],
+  "stock:view": ["lead", "editor", "finisher"],
+  "stock:move": ["lead", "editor", "finisher"],
   "contributors:private-data": ["lead", "editor"],
   /** The credits screen: credit lines, asking contributors to approve them, changing a line. */
   "credits:manage": ["lead", "editor"],

@@ -13,6 +13,8 @@ export const LENGTH = {
   personName: 255,
   anthologyTitle: 200,
   pressName: 200,
+  /** A press name, or "lead:" and the lead's user id when the anthology names no press. */
+  pressKey: 255,
   callTheme: 200,
   /** IANA zone names are at most 30-odd characters; 64 leaves room. */
   timeZone: 64,

@@ -63,7 +63,7 @@ test("a contributor's screens pass axe", async ({ page }) => {
 });
 
 test("the lead's screens pass axe", async ({ page }) => {
-  test.slow(); // nine screens in one walk
+  test.slow(); // twelve screens in one walk
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   await expectNoSeriousViolations(page, "the studio home");
@@ -100,6 +100,18 @@ test("the lead's screens pass axe", async ({ page }) => {
   await page.getByTestId("view-sheets").click();
   await expect(page.getByTestId("view-sheets")).toHaveAttribute("aria-pressed", "true");
   await expectNoSeriousViolations(page, "the map, as printed");
+
+  await page.goto(`/studio/${slug}/run`);
+  await expect(page.getByTestId("run-summary")).toBeVisible();
+  await expectNoSeriousViolations(page, "the print run planner");
+
+  await page.goto(`/studio/${slug}/finishing`);
+  await expect(page.getByTestId("batch").first()).toBeVisible();
+  await expectNoSeriousViolations(page, "the finishing batches");
+
+  await page.goto(`/studio/${slug}/stock`);
+  await expect(page.getByTestId("stock-counts")).toBeVisible();
+  await expectNoSeriousViolations(page, "the stock");
 });
 
 test("the sales and payouts screens pass axe", async ({ page }) => {

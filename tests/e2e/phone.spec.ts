@@ -87,7 +87,7 @@ test("a contributor's screens fit a phone", async ({ page }) => {
 });
 
 test("the lead's screens fit a phone", async ({ page }) => {
-  test.slow(); // nine screens in one walk
+  test.slow(); // twelve screens in one walk
   const lead = demoAccount("odile");
   await signInWithPassword(page, lead.email, lead.password);
   await expectNoSidewaysScroll(page, "the studio home");
@@ -152,6 +152,18 @@ test("the lead's screens fit a phone", async ({ page }) => {
   await expect(page.getByTestId("preflight-list")).toBeVisible();
   await expect(page.getByTestId("produce")).toBeDisabled();
   await expectNoSidewaysScroll(page, "the print files");
+
+  await page.goto(`/studio/${slug}/run`);
+  await expect(page.getByTestId("run-summary")).toBeVisible();
+  await expectNoSidewaysScroll(page, "the print run planner");
+
+  await page.goto(`/studio/${slug}/finishing`);
+  await expect(page.getByTestId("batch").first()).toBeVisible();
+  await expectNoSidewaysScroll(page, "the finishing batches");
+
+  await page.goto(`/studio/${slug}/stock`);
+  await expect(page.getByTestId("stock-counts")).toBeVisible();
+  await expectNoSidewaysScroll(page, "the stock");
 });
 
 test("the sales and payouts screens fit a phone", async ({ page }) => {

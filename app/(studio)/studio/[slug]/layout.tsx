@@ -17,6 +17,9 @@ const SECTIONS: { href: string; label: string; action: Action }[] = [
   { href: "/sales", label: "Sales", action: "sales:record" },
   { href: "/payouts", label: "Payouts", action: "payouts:manage" },
   { href: "/my-payouts", label: "My payouts", action: "payouts:view-own" },
+  { href: "/run", label: "Print run", action: "run:view" },
+  { href: "/finishing", label: "Finishing", action: "finishing:view" },
+  { href: "/stock", label: "Stock", action: "stock:view" },
   { href: "/members", label: "People", action: "members:invite" },
 ];
 
