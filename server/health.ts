@@ -94,7 +94,7 @@ export const probeQueue = () =>
       if (answer !== "PONG") throw new Error(`unexpected answer to PING`);
     } catch (error) {
       const code = (error as NodeJS.ErrnoException).code;
-      throw new Error(code ? `cannot connect (${code})` : "cannot connect");
+      throw new Error(code ? `cannot connect (${code})` : "cannot connect", { cause: error });
     } finally {
       redis.disconnect();
     }
