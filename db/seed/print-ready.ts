@@ -146,7 +146,9 @@ export async function seedPrintReady(db: Db): Promise<{ slug: string; pages: num
         return {
           anthologyId: jam.id,
           pageNumber: i + 1,
-          reservation: at ? null : ("blank" as const),
+          // Page 2 carries the credits and page 7 the colophon, set in type from the approved
+          // credit lines when the print files are made; nothing else is left empty.
+          reservation: at ? null : i + 1 === 2 ? ("credits" as const) : ("colophon" as const),
           pieceId: at?.pieceId ?? null,
           piecePageIndex: at?.index ?? null,
           locked: false,

@@ -1,3 +1,4 @@
+import { execFileSync } from "node:child_process";
 import { expect, test } from "@playwright/test";
 import { demoAccount } from "../helpers/demo";
 import { signInWithPassword } from "./helpers";
@@ -43,4 +44,12 @@ test("the lead produces print files, sees their progress and downloads them", as
   expect(download.suggestedFilename()).toMatch(/^heron-street-comics-jam-print-map-v\d+\.pdf$/);
   const path = await download.path();
   expect(path).toBeTruthy();
+
+  // The credits page (page 2) is set from the approved lines only; the colophon on page 7.
+  // Read back with poppler's pdftotext, an independent reader.
+  const text = execFileSync("pdftotext", ["-layout", path, "-"], { encoding: "utf8" });
+  expect(text).toContain("Four Cats, One Window");
+  expect(text).toContain("Jam Night");
+  expect(text).not.toContain("Last Bus Home");
+  expect(text).toContain("Heron Street Drawing Night"); // the press, in the colophon
 });
