@@ -61,13 +61,15 @@ export async function receiveMultipartFile(req, { field, destPath, maxBytes }) {
 
   /** @type {Promise<NonNullable<Awaited<ReturnType<typeof receiveMultipartFile>>>> | null} */
   let received = null;
+  /** @type {import("node:fs").WriteStream | null} */
+  let out = null;
   parser.on("file", (name, file, info) => {
     if (name !== field || received) {
       file.resume();
       return;
     }
     const { stream, counted } = meter(maxBytes);
-    const out = createWriteStream(destPath, { highWaterMark: 4 * 1024 * 1024 });
+    out = createWriteStream(destPath, { highWaterMark: 4 * 1024 * 1024 });
     received = pipeline(file, stream, out).then(() => ({
       size: counted.size,
       md5: counted.md5(),
@@ -88,6 +90,9 @@ export async function receiveMultipartFile(req, { field, destPath, maxBytes }) {
   } catch (err) {
     // Let the file's own pipeline settle, so no write is still open when the caller removes it.
     await received?.catch(() => {});
+    // A stream destroyed before its file finished opening still opens (creating it) and then
+    // closes: wait for that close, so the caller's removal comes after the file exists.
+    if (out && !out.closed) await new Promise((resolve) => out.once("close", resolve));
     // busboy's messages about the body itself; anything else (a client that went away) is thrown as is.
     if (parseError && Object.hasOwn(PARSE_ERRORS, parseError.message))
       throw new BadRequestError(PARSE_ERRORS[parseError.message]);
