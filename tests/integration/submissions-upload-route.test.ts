@@ -1,11 +1,11 @@
 // The upload route end to end with the real UploadThing SDK in production-callback mode: the route
 // presigns (after the middleware's checks), the file goes to the upload fake, the fake posts the
 // signed hook back to the route, the route runs the spec check and the answer reaches the uploader.
-import { createServer, type Server } from "node:http";
-import type { AddressInfo } from "node:net";
+import type { Server } from "node:http";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { assertTestDatabase } from "../helpers/env";
+import { presignUpload, putUpload, startHookServer } from "../helpers/upload-route";
 import type { TestPerson } from "../helpers/submissions";
 
 assertTestDatabase(process.env.DATABASE_URL);
@@ -30,32 +30,7 @@ let openId: number, closedId: number;
 
 beforeAll(async () => {
   // The fake must post its hook somewhere this process answers: a small server in front of the route.
-  server = createServer(async (req, res) => {
-    const chunks: Buffer[] = [];
-    for await (const chunk of req) chunks.push(chunk as Buffer);
-    const headers = new Headers();
-    for (const [name, value] of Object.entries(req.headers)) {
-      if (
-        typeof value === "string" &&
-        (name === "content-type" ||
-          name.startsWith("uploadthing") ||
-          name.startsWith("x-uploadthing"))
-      )
-        headers.set(name, value);
-    }
-    const request = new Request(`http://127.0.0.1${req.url}`, {
-      method: req.method,
-      headers,
-      body: chunks.length ? Buffer.concat(chunks) : undefined,
-    });
-    const response = await route.POST(request as never);
-    res.writeHead(response.status, {
-      "content-type": response.headers.get("content-type") ?? "application/json",
-    });
-    res.end(Buffer.from(await response.arrayBuffer()));
-  });
-  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
-  process.env.UPLOADTHING_CALLBACK_URL = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/uploadthing`;
+  server = await startHookServer(() => (request) => route.POST(request as never));
   // Only now load the app: lib/env.ts reads the environment once.
   route = await import("@/app/api/uploadthing/route");
   helpers = await import("../helpers/submissions");
@@ -81,8 +56,6 @@ const as = (person: TestPerson | null) => {
   session.user = person ? { id: person.id, name: person.name, email: person.email } : null;
 };
 
-/** Either the presigned files or, when refused, the SDK's error shape. */
-type PresignBody = { 0: { url: string; key: string }; message: string };
 type PutBody = {
   fileHash: string;
   serverData: {
@@ -95,35 +68,14 @@ type PutBody = {
 };
 
 /** Step 1, as the browser client does it: ask the route for a presigned URL. */
-async function presign(
+const presign = (
   input: { pieceId: number; pageIndex: number; expectedRevision: number },
   file: { name: string; size: number; type: string },
-) {
-  const response = await route.POST(
-    new Request("http://127.0.0.1/api/uploadthing?actionType=upload&slug=artworkPage", {
-      method: "POST",
-      headers: {
-        "content-type": "application/json",
-        "x-uploadthing-package": "@uploadthing/react",
-        "x-uploadthing-version": "7.7.4",
-      },
-      body: JSON.stringify({ input, files: [{ ...file, lastModified: Date.now() }] }),
-    }) as never,
-  );
-  return { status: response.status, body: (await response.json()) as PresignBody };
-}
+) => presignUpload((request) => route.POST(request as never), input, file);
 
 /** Steps 2 and 3: send the bytes to the presigned URL and wait for the checked answer. */
-async function put(url: string, bytes: Uint8Array, name: string, type: string) {
-  const form = new FormData();
-  form.append("file", new File([new Uint8Array(bytes)], name, { type }));
-  const response = await fetch(url, {
-    method: "PUT",
-    body: form,
-    headers: { Range: "bytes=0-", "x-uploadthing-version": "7.7.4" },
-  });
-  return { status: response.status, body: (await response.json()) as PutBody };
-}
+const put = (url: string, bytes: Uint8Array, name: string, type: string) =>
+  putUpload<PutBody>(url, bytes, name, type);
 
 describe("the artworkPage upload route", () => {
   it("a good page goes through the SDK, the fake and the hook, and comes back checked", async () => {
