@@ -6,6 +6,7 @@ import { LIMITS } from "@/lib/rate-limits";
 import { hashPassword } from "@/server/auth/password";
 import { check, consume } from "@/server/rate-limit";
 import { testEnv } from "../helpers/env";
+import { authPost, cookieHeader, signInWith } from "../helpers/http-session";
 import { listMessages } from "../helpers/outbox";
 import { connect, createPerson, type FixturePerson } from "../helpers/review-fixtures";
 
@@ -22,38 +23,6 @@ async function person(label: string): Promise<FixturePerson> {
   people.push(p);
   return p;
 }
-
-/** The cookie header value from a response's Set-Cookie lines. */
-function cookiesOf(response: Response, jar: Map<string, string>) {
-  for (const line of response.headers.getSetCookie()) {
-    const [pair] = line.split(";");
-    const at = pair!.indexOf("=");
-    jar.set(pair!.slice(0, at), pair!.slice(at + 1));
-  }
-  return [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-}
-
-/** One POST to an Auth.js endpoint with a fresh CSRF token, as its own sign-in form sends it. */
-async function authPost(
-  path: string,
-  fields: Record<string, string>,
-  jar = new Map<string, string>(),
-) {
-  const csrf = await fetch(`${testEnv.appUrl}/api/auth/csrf`);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const cookie = cookiesOf(csrf, jar);
-  const response = await fetch(`${testEnv.appUrl}${path}`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie },
-    body: new URLSearchParams({ ...fields, csrfToken, callbackUrl: "/studio" }),
-  });
-  cookiesOf(response, jar);
-  return response;
-}
-
-const signInWith = (email: string, password: string, jar?: Map<string, string>) =>
-  authPost("/api/auth/callback/credentials", { email, password }, jar);
 
 beforeAll(async () => {
   conn = await connect();
@@ -142,7 +111,7 @@ describe("upload starts", () => {
     expect((await signInWith(p.email, PASSWORD, jar)).status).toBe(302);
     for (let i = 0; i < LIMITS.uploadStart.points; i++)
       await consume("uploadStart", `user:${p.id}`);
-    const cookie = [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+    const cookie = cookieHeader(jar);
     const response = await fetch(
       `${testEnv.appUrl}/api/uploadthing?actionType=upload&slug=artworkPage`,
       {
