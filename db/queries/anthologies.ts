@@ -4,6 +4,7 @@ import { db, schema } from "@/db";
 import { roleChangeRefusal, type RoleChangeRefusal } from "@/lib/auth/policy";
 import type { Role } from "@/lib/domain";
 import { isSlug } from "@/lib/slug";
+import { isDuplicateKey } from "./payouts";
 import { bumpSessionVersion } from "./users";
 
 export type Anthology = typeof schema.anthologies.$inferSelect;
@@ -102,6 +103,22 @@ const STUDIO_SEGMENTS = new Set(["new", "account"]);
 
 /** Creates an anthology with a free slug and makes its creator the lead editor, in one transaction. */
 export async function createAnthology(
+  userId: string,
+  fields: Omit<typeof schema.anthologies.$inferInsert, "slug" | "createdBy">,
+  wantedSlug: string,
+): Promise<Anthology> {
+  // Two people (or two tabs) creating "Tide Pools" at once both see the slug free; the unique
+  // index refuses the later insert, and the next try finds the slug taken and picks the next one.
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await insertAnthology(userId, fields, wantedSlug);
+    } catch (error) {
+      if (attempt >= 5 || !isDuplicateKey(error)) throw error;
+    }
+  }
+}
+
+async function insertAnthology(
   userId: string,
   fields: Omit<typeof schema.anthologies.$inferInsert, "slug" | "createdBy">,
   wantedSlug: string,
