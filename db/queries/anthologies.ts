@@ -1,4 +1,5 @@
 import "server-only";
+import { randomBytes } from "node:crypto";
 import { and, asc, eq } from "drizzle-orm";
 import { db, schema } from "@/db";
 import { roleChangeRefusal, type RoleChangeRefusal } from "@/lib/auth/policy";
@@ -109,11 +110,14 @@ export async function createAnthology(
 ): Promise<Anthology> {
   // Two people (or two tabs) creating "Tide Pools" at once both see the slug free; the unique
   // index refuses the later insert, and the next try finds the slug taken and picks the next one.
+  // After two collisions (many at once with one title), a short random tail ends the race.
   for (let attempt = 1; ; attempt++) {
+    const slug =
+      attempt <= 2 ? wantedSlug : `${wantedSlug.slice(0, 53)}-${randomBytes(3).toString("hex")}`;
     try {
-      return await insertAnthology(userId, fields, wantedSlug);
+      return await insertAnthology(userId, fields, slug);
     } catch (error) {
-      if (attempt >= 5 || !isDuplicateKey(error)) throw error;
+      if (attempt >= 8 || !isDuplicateKey(error)) throw error;
     }
   }
 }

@@ -35,8 +35,20 @@ async function watch(page: Page) {
 /** Opens a screen and checks each text is there literally and nothing ran or was injected. */
 async function expectShownAsText(page: Page, url: string, texts: string[]) {
   await page.goto(url);
+  // Shown as text, or as the value of a field the person may edit.
+  const shownText = () =>
+    page.evaluate(() =>
+      [
+        document.body.innerText,
+        ...[...document.querySelectorAll("input, textarea")].map(
+          (f) => (f as HTMLInputElement).value,
+        ),
+      ]
+        .join("\n")
+        .replace(/\s+/g, " "),
+    );
   for (const text of texts)
-    await expect(page.locator("body"), `${url}: ${text}`).toContainText(text);
+    await expect.poll(shownText, { message: `${url}: ${text}`, timeout: 10_000 }).toContain(text);
   expect(await page.evaluate(() => (window as unknown as { __xss?: unknown }).__xss), url).toBe(
     undefined,
   );
