@@ -117,6 +117,8 @@ test("hostile text in titles, names, notes and run records is shown literally an
 
   // The lead's own records: an editors' note, a run event, a price list and a sale.
   await json(request, "POST", `/api/pieces/${pieceId}/notes`, { body: shown("Note") });
+  // The credits screen lists accepted pieces: accept it though its pages are not in yet.
+  await json(request, "POST", `/api/pieces/${pieceId}/status`, { to: "accepted", confirm: true });
   await json(request, "POST", `/api/anthologies/${slug}/run/events`, {
     name: shown("Event"),
     kind: "fair",
