@@ -1,4 +1,9 @@
-import { NextResponse } from "next/server";
+import {
+  NextResponse,
+  type NextFetchEvent,
+  type NextMiddleware,
+  type NextRequest,
+} from "next/server";
 import { auth } from "@/auth";
 import { STUDIO_PATH_HEADER } from "@/lib/auth/forbidden";
 import { originOf, securityHeaders } from "@/lib/security/headers";
@@ -9,10 +14,11 @@ const connectOrigins = [originOf(process.env.UPLOADTHING_INGEST_URL)].filter(
 );
 
 /**
- * Every page: a fresh CSP nonce and the security headers. Studio pages also send signed-out
+ * Pages: a fresh CSP nonce and the security headers. Studio pages also send signed-out
  * visitors to sign-in, coming back afterwards (API routes answer 401 themselves).
  */
-export const proxy = auth((request) => {
+// auth() wraps it as middleware; its overloads also cover route handlers, hence the narrowing.
+const pages = auth((request) => {
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(18))).toString("base64");
   const headers = securityHeaders({
     nonce,
@@ -38,9 +44,35 @@ export const proxy = auth((request) => {
   }
   for (const [name, value] of Object.entries(headers)) response.headers.set(name, value);
   return response;
-});
+}) as unknown as NextMiddleware;
+
+/** Whether every %-escape in a path decodes (a lone "%" or an escaped lone surrogate does not). */
+function decodes(path: string): boolean {
+  try {
+    decodeURIComponent(path);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * Every request first: a path whose %-escapes do not decode is refused with 400 here, since the
+ * router would otherwise fail on it with a bare 500. API routes then go on untouched (they answer
+ * 401 themselves); pages get the headers above.
+ */
+export function proxy(request: NextRequest, event: NextFetchEvent) {
+  const path = request.nextUrl.pathname;
+  if (!decodes(path))
+    return NextResponse.json(
+      { error: "This address has a broken %-escape in it, so it leads nowhere." },
+      { status: 400 },
+    );
+  if (path.startsWith("/api/")) return NextResponse.next();
+  return pages(request, event);
+}
 
 export const config = {
-  // Pages only: API routes, built assets and font files are left alone.
-  matcher: ["/((?!api/|_next/static|_next/image|favicon.ico|fonts/).*)"],
+  // Built assets and font files are left alone.
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|fonts/).*)"],
 };

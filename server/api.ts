@@ -117,7 +117,7 @@ export function idParam(value: string, what: string): number {
 export const MAX_JSON_BYTES = 1024 * 1024;
 
 /** Reads at most `limit` bytes of a body as text, or throws 413 as soon as it grows past it. */
-async function readTextCapped(request: Request, limit: number): Promise<string> {
+export async function readTextCapped(request: Request, limit: number): Promise<string> {
   const tooLarge = () =>
     new HttpError(413, `The request body is larger than ${Math.round(limit / 1024)} KB.`);
   const declared = Number(request.headers.get("content-length") ?? "");
@@ -157,6 +157,19 @@ export async function readJson<S extends z.ZodType>(
     throw new HttpError(400, "Some fields need attention.", { fields: fieldErrors(parsed.error) });
   }
   return parsed.data;
+}
+
+/** How deep a JSON value nests (objects and arrays), counted without recursion. */
+export function jsonDepth(value: unknown): number {
+  let deepest = 0;
+  const stack: [unknown, number][] = [[value, 0]];
+  while (stack.length) {
+    const [v, depth] = stack.pop()!;
+    if (v === null || typeof v !== "object") continue;
+    deepest = Math.max(deepest, depth + 1);
+    for (const child of Object.values(v)) stack.push([child, depth + 1]);
+  }
+  return deepest;
 }
 
 /** Query parameters as a record: a parameter given once is a string, given more than once an array. */

@@ -54,5 +54,15 @@ export function errorSummary(error: unknown): string {
   if (!(error instanceof Error)) return "unknown";
   const code = (error as { code?: unknown }).code;
   if (typeof code === "string" && "sqlMessage" in error) return `${error.name} ${code}`;
+  // Drizzle wraps the driver's error and writes the query's parameters (people's text) into its
+  // own message: keep the driver's code and the statement's first words only.
+  const cause = (error as { cause?: unknown }).cause;
+  if (cause instanceof Error && "sqlMessage" in cause) {
+    const statement = error.message
+      .replace(/^Failed query: /, "")
+      .split(/\s+/)
+      .slice(0, 3);
+    return `${error.name} ${errorSummary(cause)} in ${statement.join(" ")}`;
+  }
   return `${error.name}: ${error.message}`.slice(0, 300);
 }

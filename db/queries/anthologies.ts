@@ -1,9 +1,11 @@
 import "server-only";
+import { randomBytes } from "node:crypto";
 import { and, asc, eq } from "drizzle-orm";
 import { db, schema } from "@/db";
 import { roleChangeRefusal, type RoleChangeRefusal } from "@/lib/auth/policy";
 import type { Role } from "@/lib/domain";
 import { isSlug } from "@/lib/slug";
+import { isDuplicateKey } from "./payouts";
 import { bumpSessionVersion } from "./users";
 
 export type Anthology = typeof schema.anthologies.$inferSelect;
@@ -102,6 +104,25 @@ const STUDIO_SEGMENTS = new Set(["new", "account"]);
 
 /** Creates an anthology with a free slug and makes its creator the lead editor, in one transaction. */
 export async function createAnthology(
+  userId: string,
+  fields: Omit<typeof schema.anthologies.$inferInsert, "slug" | "createdBy">,
+  wantedSlug: string,
+): Promise<Anthology> {
+  // Two people (or two tabs) creating "Tide Pools" at once both see the slug free; the unique
+  // index refuses the later insert, and the next try finds the slug taken and picks the next one.
+  // After two collisions (many at once with one title), a short random tail ends the race.
+  for (let attempt = 1; ; attempt++) {
+    const slug =
+      attempt <= 2 ? wantedSlug : `${wantedSlug.slice(0, 53)}-${randomBytes(3).toString("hex")}`;
+    try {
+      return await insertAnthology(userId, fields, slug);
+    } catch (error) {
+      if (attempt >= 8 || !isDuplicateKey(error)) throw error;
+    }
+  }
+}
+
+async function insertAnthology(
   userId: string,
   fields: Omit<typeof schema.anthologies.$inferInsert, "slug" | "createdBy">,
   wantedSlug: string,

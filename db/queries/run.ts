@@ -324,6 +324,13 @@ export async function planBatchesFromEvents(anthology: Anthology): Promise<numbe
     sheetsPerCopy: counts.sheetsPerCopy,
   });
   await db.transaction(async (tx) => {
+    // Two re-plans at once would each delete and insert the same positions: the anthology's row
+    // lock makes the second wait and then replace the first's batches.
+    await tx
+      .select({ id: schema.anthologies.id })
+      .from(schema.anthologies)
+      .where(eq(schema.anthologies.id, anthology.id))
+      .for("update");
     await tx.delete(fb).where(eq(fb.anthologyId, anthology.id));
     await tx.insert(fb).values(
       schedule.batches.map((b) => ({

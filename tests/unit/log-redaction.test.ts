@@ -47,6 +47,16 @@ describe("the app log", () => {
       { code: "ER_DUP_ENTRY", sqlMessage: "Duplicate entry 'ysolde@example.test' for key 'email'" },
     );
     expect(errorSummary(driver)).toBe("Error ER_DUP_ENTRY");
+    // A query builder's wrapper names the parameters in its message; only the code stays.
+    const wrapped = Object.assign(
+      new Error(
+        "Failed query: insert into `user` (`email`) values (?)\nparams: ysolde@example.test",
+      ),
+      { name: "DrizzleQueryError", cause: driver },
+    );
+    expect(errorSummary(wrapped)).toBe(
+      "DrizzleQueryError Error ER_DUP_ENTRY in insert into `user`",
+    );
     expect(errorSummary(new RangeError("page 9 is outside 1..8"))).toBe(
       "RangeError: page 9 is outside 1..8",
     );

@@ -1,11 +1,13 @@
-import type { NextRequest } from "next/server";
+import { NextRequest } from "next/server";
 import { auth } from "@/auth";
-import { apiRoute } from "@/server/api";
+import { apiRoute, HttpError, jsonDepth, MAX_JSON_BYTES, readTextCapped } from "@/server/api";
 import { addressOf, consume, tooManyRequests } from "@/server/rate-limit";
 import { uploadRouteHandlers } from "@/server/uploads";
 import { uploadRouter } from "./core";
 
 const handlers = uploadRouteHandlers(uploadRouter);
+/** An upload start or callback is a flat object of a few levels; far deeper is not one. */
+const MAX_UPLOAD_JSON_DEPTH = 32;
 // Upload starts change state: through apiRoute, a page of another site may not start one.
 const post = apiRoute<undefined>(async (request) => {
   const req = request as NextRequest;
@@ -17,7 +19,23 @@ const post = apiRoute<undefined>(async (request) => {
     const limited = await consume("uploadStart", who);
     if (!limited.ok) return tooManyRequests(limited);
   }
-  return handlers.POST(req);
+  // The SDK reads any body whole and fails on one nested thousands deep: cap and check it first.
+  const text = await readTextCapped(req, MAX_JSON_BYTES);
+  if (text.trim() !== "") {
+    let parsed: unknown;
+    try {
+      parsed = JSON.parse(text);
+    } catch {
+      throw new HttpError(400, "The request body is not valid JSON.");
+    }
+    if (jsonDepth(parsed) > MAX_UPLOAD_JSON_DEPTH)
+      throw new HttpError(400, "The request body nests too deeply.");
+  }
+  const headers = new Headers(req.headers);
+  headers.delete("content-length");
+  return handlers.POST(
+    new NextRequest(req.url, { method: req.method, headers, body: text === "" ? null : text }),
+  );
 });
 
 export const GET = handlers.GET;
