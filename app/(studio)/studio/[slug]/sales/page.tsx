@@ -113,6 +113,11 @@ export default async function SalesPage({ params }: { params: Promise<{ slug: st
                       <span className="block text-xs text-ink-faint">
                         {SALE_CHANNEL_LABELS[s.channel]}
                       </span>
+                      {s.note ? (
+                        <span className="block max-w-xs text-xs break-words text-ink-soft">
+                          {s.note}
+                        </span>
+                      ) : null}
                     </td>
                     <td className="py-1 pr-3 text-right">{s.copies}</td>
                     <td className="py-1 pr-3 text-right">{money(s.grossCents)}</td>
