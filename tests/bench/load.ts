@@ -245,6 +245,8 @@ async function concurrentEdits(base: string, cookie: string) {
 }
 
 async function main(): Promise<void> {
+  // Other work on the machine shows up in every figure; the load average says how much there was.
+  const loadAverageAtStart = os.loadavg().map((v) => round(v, 2));
   assertTestDatabase();
   const base = appBase();
   const editor = await makeEditor();
@@ -281,6 +283,8 @@ async function main(): Promise<void> {
       {
         node: process.version,
         cpus: os.cpus().length,
+        loadAverageAtStart,
+        loadAverageAtEnd: os.loadavg().map((v) => round(v, 2)),
         tool: "autocannon 8 (one process, keep-alive, no pipelining)",
         durationS: DURATION_S,
         warmUpS: WARM_UP_S,
