@@ -60,9 +60,9 @@ export function ensureInstalled() {
   if (!which("redis-server")) throw new RedisError("apt-get finished but redis-server is missing");
 }
 
-/** The folder a mode keeps its Redis data in: kept for start/dev, thrown away for tests. */
+/** The folder a mode keeps its Redis data in: kept for start/dev, thrown away for tests and the bench. */
 export function dataDir(mode) {
-  return path.join(ROOT, ".data", mode === "test" ? "redis-test" : "redis");
+  return path.join(ROOT, ".data", { test: "redis-test", bench: "redis-bench" }[mode] ?? "redis");
 }
 
 /**

@@ -66,7 +66,8 @@ export function appEnv(mode, ports, databaseUrl, secret, redisUrl) {
     STRIPE_API_PORT: String(ports.payments),
     NEXT_TELEMETRY_DISABLED: "1",
     TZ: "UTC",
-    NEXT_DIST_DIR: mode === "test" ? ".next-test" : ".next",
+    // Each kind of run builds into its own folder, so a build never replaces what another serves.
+    NEXT_DIST_DIR: { test: ".next-test", bench: ".next-bench" }[mode] ?? ".next",
     FAKE_UPLOAD_PORT: String(ports.upload),
     FAKE_SMTP_PORT: String(ports.smtp),
     FAKE_OUTBOX_PORT: String(ports.outbox),
@@ -74,7 +75,7 @@ export function appEnv(mode, ports, databaseUrl, secret, redisUrl) {
     FAKE_PAYMENTS_API_KEY: FAKE_STRIPE_SECRET_KEY,
     FAKE_PAYMENTS_WEBHOOK_SECRET: FAKE_STRIPE_WEBHOOK_SECRET,
     FAKE_PAYMENTS_WEBHOOK_URL: `http://127.0.0.1:${ports.app}/api/payments/webhook`,
-    FAKE_DATA_DIR: path.join(DATA, mode === "test" ? "fakes-test" : "fakes"),
+    FAKE_DATA_DIR: path.join(DATA, { test: "fakes-test", bench: "fakes-bench" }[mode] ?? "fakes"),
     QUIRELINE_PRIVATE_DB: db.private ? "1" : "0",
   };
   // next and vitest set NODE_ENV themselves; an inherited value breaks `next build`.

@@ -3,7 +3,7 @@
 import fs from "node:fs";
 import path from "node:path";
 
-import { APP_BIND_HOST, Fatal, note, rel, RESULTS, ROOT, sleep, step } from "./common.mjs";
+import { APP_BIND_HOST, Fatal, logPath, note, rel, ROOT, sleep, step } from "./common.mjs";
 import { launch, runToEnd } from "./processes.mjs";
 
 function nextBin() {
@@ -28,7 +28,7 @@ export async function startApp(mode, ports, env) {
       ? ["dev", "-H", APP_BIND_HOST, "-p", String(ports.app)]
       : ["start", "-H", APP_BIND_HOST, "-p", String(ports.app)];
   step(`starting the app: next ${args.join(" ")}`);
-  const logFile = mode === "test" ? path.join(RESULTS, "app.log") : null;
+  const logFile = logPath(mode, "app.log");
   let stdio = "inherit";
   if (logFile) {
     const fd = fs.openSync(logFile, "w");

@@ -10,6 +10,8 @@ export const DATA = path.join(ROOT, ".data");
 /** The app listens on loopback only: it is a local workshop tool, and /dev/outbox depends on it. */
 export const APP_BIND_HOST = "127.0.0.1";
 export const RESULTS = path.join(DATA, "test-results");
+/** The logs of the stack `npm run bench` starts (its figures go to stdout). */
+export const BENCH_RESULTS = path.join(DATA, "bench-results");
 const T0 = Date.now();
 export const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
 
@@ -21,3 +23,13 @@ export const step = (msg) => console.log(`[quireline ${secs()}s] ${msg}`);
 export const note = (msg) => console.log(`                  ${msg}`);
 export const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 export const rel = (p) => path.relative(ROOT, p) || ".";
+
+/** Test and bench runs start from nothing: a fresh database, an empty queue, empty fake stores. */
+export const throwaway = (mode) => mode === "test" || mode === "bench";
+
+/** Where a test or bench run keeps a process's log; null for start and dev, which print to the terminal. */
+export function logPath(mode, name) {
+  if (mode === "test") return path.join(RESULTS, name);
+  if (mode === "bench") return path.join(BENCH_RESULTS, name);
+  return null;
+}

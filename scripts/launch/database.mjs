@@ -5,8 +5,14 @@ import fs from "node:fs";
 import path from "node:path";
 
 import * as mariadb from "../mariadb.mjs";
-import { Fatal, note, ROOT, step } from "./common.mjs";
+import { Fatal, note, ROOT, step, throwaway } from "./common.mjs";
 import { runToEnd } from "./processes.mjs";
+
+/** The database a throwaway run recreates, from the name `npm start` uses. */
+function throwawayName(mode, base) {
+  const stem = base.replace(/_test$/, "");
+  return mode === "bench" ? `${stem}_bench_test` : `${stem}_test`;
+}
 
 /** What this run uses; `private` says the launcher took a lease on the private server. */
 export let db = { private: false, url: "" };
@@ -30,11 +36,11 @@ export async function prepareDatabase(mode) {
     }
     const base = decodeURIComponent(u.pathname.replace(/^\//, ""));
     if (!base) throw new Fatal("DATABASE_URL names no database");
-    if (mode !== "test") {
+    if (!throwaway(mode)) {
       step(`database: using DATABASE_URL (${u.hostname}:${u.port || 3306}/${base})`);
       return (db = { private: false, url: given });
     }
-    const testDb = base.endsWith("_test") ? base : `${base}_test`;
+    const testDb = mode === "test" && base.endsWith("_test") ? base : throwawayName(mode, base);
     step(`database: recreating ${testDb} on ${u.hostname}:${u.port || 3306} (from DATABASE_URL)`);
     const mysql = (await import("mysql2/promise")).default;
     let conn;
@@ -60,7 +66,7 @@ export async function prepareDatabase(mode) {
     return (db = { private: false, url: u.toString() });
   }
 
-  const name = mode === "test" ? "quireline_test" : "quireline";
+  const name = throwaway(mode) ? throwawayName(mode, "quireline") : "quireline";
   // Take a lease first, so a launcher that is leaving does not stop the server under us.
   mariadb.addLease();
   db = { private: true, url: "" };
@@ -70,8 +76,8 @@ export async function prepareDatabase(mode) {
       ? `database: started the private MariaDB on 127.0.0.1:${server.port}`
       : `database: reusing the private MariaDB on 127.0.0.1:${server.port}`,
   );
-  const url = mariadb.ensureDatabase(name, { reset: mode === "test" });
-  note(mode === "test" ? `dropped and recreated ${name}` : `database ${name} is ready`);
+  const url = mariadb.ensureDatabase(name, { reset: throwaway(mode) });
+  note(throwaway(mode) ? `dropped and recreated ${name}` : `database ${name} is ready`);
   return (db = { private: true, url });
 }
 

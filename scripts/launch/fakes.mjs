@@ -3,19 +3,19 @@
 import fs from "node:fs";
 import path from "node:path";
 
-import { Fatal, note, rel, RESULTS, ROOT, sleep, step } from "./common.mjs";
+import { Fatal, logPath, note, rel, ROOT, sleep, step, throwaway } from "./common.mjs";
 import { launch, lines } from "./processes.mjs";
 
 export async function startFakes(mode, env) {
   const script = "storage-fake/start.mjs";
   if (!fs.existsSync(path.join(ROOT, script))) throw new Fatal(`${script} does not exist`);
-  if (mode === "test") fs.rmSync(env.FAKE_DATA_DIR, { recursive: true, force: true });
+  if (throwaway(mode)) fs.rmSync(env.FAKE_DATA_DIR, { recursive: true, force: true });
   fs.mkdirSync(env.FAKE_DATA_DIR, { recursive: true });
   step(
     `starting the local fakes (uploads :${env.FAKE_UPLOAD_PORT}, SMTP :${env.FAKE_SMTP_PORT}, outbox :${env.FAKE_OUTBOX_PORT}, payments :${env.FAKE_PAYMENTS_PORT})`,
   );
 
-  const logFile = mode === "test" ? path.join(RESULTS, "fakes.log") : null;
+  const logFile = logPath(mode, "fakes.log");
   const log = logFile ? fs.createWriteStream(logFile, { flags: "w" }) : null;
   const entry = launch("fakes", process.execPath, [script], {
     env,

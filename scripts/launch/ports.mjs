@@ -6,13 +6,22 @@ import net from "node:net";
 
 import { Fatal } from "./common.mjs";
 
-// QUIRELINE_TEST_PORT_OFFSET moves every `npm test` port by that much, so a second checkout can
-// run its tests at the same time (give it its own QUIRELINE_DB_PORT too).
+// QUIRELINE_TEST_PORT_OFFSET moves every `npm test` and `npm run bench` port by that much, so a
+// second checkout can run its tests at the same time (give it its own QUIRELINE_DB_PORT too).
 const testOffset = Number.parseInt(process.env.QUIRELINE_TEST_PORT_OFFSET ?? "", 10) || 0;
 const shift = (ports, by) => Object.fromEntries(Object.entries(ports).map(([k, v]) => [k, v + by]));
 // QUIRELINE_REDIS_PORT puts the private Redis of the print queue elsewhere (after the offset).
 const redisPort = Number.parseInt(process.env.QUIRELINE_REDIS_PORT ?? "", 10) || 0;
 const withRedis = (ports) => (redisPort ? { ...ports, redis: redisPort } : ports);
+
+const TEST_PORTS = {
+  app: 3100,
+  upload: 4690,
+  smtp: 4625,
+  outbox: 4626,
+  payments: 4612,
+  redis: 6490,
+};
 
 export const PORTS = {
   start: withRedis({
@@ -31,12 +40,9 @@ export const PORTS = {
     payments: 4512,
     redis: 6390,
   }),
-  test: withRedis(
-    shift(
-      { app: 3100, upload: 4690, smtp: 4625, outbox: 4626, payments: 4612, redis: 6490 },
-      testOffset,
-    ),
-  ),
+  test: withRedis(shift(TEST_PORTS, testOffset)),
+  // The bench's own stack, 200 above the test ports, so it runs beside `npm test` and `npm start`.
+  bench: withRedis(shift(TEST_PORTS, testOffset + 200)),
 };
 const PORT_OWNERS = {
   3000: "the web app of a Quireline `npm start` or `npm run dev`",
@@ -51,6 +57,12 @@ const PORT_OWNERS = {
   6490: "the print queue's Redis of a Quireline `npm test`",
   4512: "the payments fake of a Quireline `npm start`",
   4612: "the payments fake of a Quireline `npm test`",
+  3300: "the web app of a Quireline `npm run bench`",
+  4890: "the upload fake of a Quireline `npm run bench`",
+  4825: "the SMTP sink of a Quireline `npm run bench`",
+  4826: "the outbox API of a Quireline `npm run bench`",
+  4812: "the payments fake of a Quireline `npm run bench`",
+  6690: "the print queue's Redis of a Quireline `npm run bench`",
 };
 
 function portFree(port, host) {

@@ -9,12 +9,30 @@ import { note, ROOT, sleep } from "./common.mjs";
 /** @type {Set<{ name: string, child: import("node:child_process").ChildProcess, exit: Promise<{code: number|null, signal: string|null}>, exited: boolean }>} */
 export const running = new Set();
 
+/** Where a child's inherited output goes: the launcher's stdout, or its stderr for the bench. */
+let inheritedOut = "inherit";
+
+/**
+ * `npm run bench` keeps stdout for its JSON: children that would inherit it write to stderr,
+ * except those started with `stdio: "stdout"`.
+ */
+export function inheritToStderr() {
+  inheritedOut = 2;
+}
+
+function stdioOf(stdio) {
+  if (Array.isArray(stdio)) return stdio;
+  if (stdio === "stdout") return ["ignore", 1, 2];
+  const out = stdio === "inherit" ? inheritedOut : stdio;
+  return ["ignore", out, out];
+}
+
 export function launch(name, cmd, args, { env, stdio = "inherit" } = {}) {
   const child = spawn(cmd, args, {
     cwd: ROOT,
     env,
     detached: true,
-    stdio: Array.isArray(stdio) ? stdio : ["ignore", stdio, stdio],
+    stdio: stdioOf(stdio),
   });
   const entry = { name, child, exited: false, exit: null };
   entry.exit = new Promise((resolve) => {
@@ -71,9 +89,9 @@ export async function stopGroup(entry, graceMs = 10_000) {
 }
 
 /** Runs a command to completion, streaming or capturing its output. */
-export async function runToEnd(name, cmd, args, { env, capture = false } = {}) {
+export async function runToEnd(name, cmd, args, { env, capture = false, stdio = "inherit" } = {}) {
   if (!capture) {
-    const entry = launch(name, cmd, args, { env });
+    const entry = launch(name, cmd, args, { env, stdio });
     const r = await entry.exit;
     await stopGroup(entry, 2000);
     return { ...r, output: "" };

@@ -8,7 +8,7 @@ import fs from "node:fs";
 import path from "node:path";
 
 import * as redis from "../redis.mjs";
-import { Fatal, note, rel, RESULTS, ROOT, sleep, step } from "./common.mjs";
+import { Fatal, logPath, note, rel, ROOT, sleep, step, throwaway } from "./common.mjs";
 import { launch, lines } from "./processes.mjs";
 
 /** Starts the private Redis unless REDIS_URL names one; returns the URL and the entry (or null). */
@@ -32,12 +32,12 @@ export async function startRedis(mode, ports) {
     throw new Fatal(err.message);
   }
   const dir = redis.dataDir(mode);
-  // The test queue starts empty every run; start and dev keep their queued jobs.
-  if (mode === "test") fs.rmSync(dir, { recursive: true, force: true });
+  // The test and bench queues start empty every run; start and dev keep their queued jobs.
+  if (throwaway(mode)) fs.rmSync(dir, { recursive: true, force: true });
   fs.mkdirSync(dir, { recursive: true });
   const port = ports.redis;
   step(`print queue: starting a private Redis on 127.0.0.1:${port} (data in ${rel(dir)})`);
-  const logFile = path.join(mode === "test" ? RESULTS : dir, "redis.log");
+  const logFile = logPath(mode, "redis.log") ?? path.join(dir, "redis.log");
   const fd = fs.openSync(logFile, "a");
   const { cmd, args } = redis.serverCommand(port, dir);
   const entry = launch("redis", cmd, args, { stdio: ["ignore", fd, fd] });
@@ -70,7 +70,7 @@ export async function startWorker(mode, env) {
   const script = "server/print/worker.ts";
   if (!fs.existsSync(path.join(ROOT, script))) throw new Fatal(`${script} does not exist`);
   step("starting the print worker (server/print/worker.ts)");
-  const logFile = mode === "test" ? path.join(RESULTS, "worker.log") : null;
+  const logFile = logPath(mode, "worker.log");
   const log = logFile ? fs.createWriteStream(logFile, { flags: "w" }) : null;
   const entry = launch(
     "print worker",

@@ -5,7 +5,8 @@
  * ImageMagick's `identify -verbose`. Then imposition math for 96 pages, cost tables for 20
  * quantities, the page-map proposal (200 pieces into 96 pages), and the imposed print PDF of 64
  * pages of 300 ppi JPEG art beside a bare pdf-lib copy of the same pages (./pdf.ts).
- * No thresholds: the figures are for reading, not for passing.
+ * No thresholds: the figures are for reading, not for passing. This is the compute part of the
+ * bench; ./load.ts, run after it by scripts/launch.mjs, is the load part.
  */
 import sharp from "sharp";
 import { costTable, compareWithShop, breakEven, type HomeRunInputs } from "../../lib/print/costs";
