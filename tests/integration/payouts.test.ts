@@ -742,4 +742,26 @@ describe("who may use each route", () => {
     );
     expect(res.status).toBe(400);
   });
+
+  it("POST webhook: a body past the cap is refused with 413 even without a declared length", async () => {
+    const chunk = new Uint8Array(64 * 1024).fill(0x7b);
+    let pulled = 0;
+    const endless = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        pulled += chunk.byteLength;
+        if (pulled > 64 * 1024 * 1024) controller.close();
+        else controller.enqueue(chunk);
+      },
+    });
+    const res = await webhookRoute.POST(
+      new Request("http://localhost/api/payments/webhook", {
+        method: "POST",
+        body: endless,
+        duplex: "half",
+      } as RequestInit),
+    );
+    expect(res.status).toBe(413);
+    // Reading stopped soon after 512 KB, not at the end of the stream.
+    expect(pulled).toBeLessThan(1024 * 1024);
+  });
 });
