@@ -4,20 +4,21 @@
 //   node scripts/launch.mjs dev     the same with `next dev` (no build)
 //   node scripts/launch.mjs test    fresh test database, build, serve on 3100, run vitest and Playwright
 //   node scripts/launch.mjs bench   the compute figures, then a fresh bench database, build, serve
-//                                   on 3300 and the load figures (`-- --only compute|load`)
+//                                   on 3300, the load figures and the hardening checks
+//                                   (`-- --only compute|load|checks`)
 //
 // Plain Node ESM with no dependencies: it installs node_modules itself before using any package.
 // The steps live in launch/: processes.mjs (process groups), shutdown.mjs, install.mjs,
 // ports.mjs, database.mjs (database, migrations, seed), app-env.mjs, queue.mjs (Redis and the
 // print worker), fakes.mjs, app.mjs (build, serve, welcome), tests.mjs (runners and the
-// closing line) and bench.mjs (the two bench parts); this file runs them per mode.
+// closing line) and bench.mjs (the bench parts); this file runs them per mode.
 
 import fs from "node:fs";
 
 import * as mariadb from "./mariadb.mjs";
 import { buildApp, printWelcome, startApp } from "./launch/app.mjs";
 import { appEnv, authSecret } from "./launch/app-env.mjs";
-import { benchParts, runComputeBench, runLoadBench } from "./launch/bench.mjs";
+import { benchParts, runChecksBench, runComputeBench, runLoadBench } from "./launch/bench.mjs";
 import { BENCH_RESULTS, Fatal, note, rel, RESULTS, secs, step } from "./launch/common.mjs";
 import { prepareDatabase, runTsScript } from "./launch/database.mjs";
 import { startFakes } from "./launch/fakes.mjs";
@@ -34,7 +35,7 @@ async function main() {
   const mode = process.argv[2];
   if (!PORTS[mode]) {
     console.error(
-      "usage: node scripts/launch.mjs start|dev|test|bench [-- test files | --only compute|load]",
+      "usage: node scripts/launch.mjs start|dev|test|bench [-- test files | --only compute|load|checks]",
     );
     return 2;
   }
@@ -57,7 +58,7 @@ async function main() {
   let benchOk = true;
   if (bench?.compute) benchOk = await runComputeBench();
   if (shuttingDown) return shuttingDown.then(() => 130);
-  if (bench && !bench.load) return benchOk ? 0 : 1;
+  if (bench && !bench.load && !bench.checks) return benchOk ? 0 : 1;
 
   step("checking ports");
   await checkPorts(ports);
@@ -87,7 +88,9 @@ async function main() {
   }
 
   if (bench) {
-    if (!(await runLoadBench(env))) benchOk = false;
+    if (bench.load && !(await runLoadBench(env))) benchOk = false;
+    if (shuttingDown) return shuttingDown.then(() => 130);
+    if (bench.checks && !(await runChecksBench(env))) benchOk = false;
     if (shuttingDown) return shuttingDown.then(() => 130);
     note(`logs of the bench's stack: ${rel(BENCH_RESULTS)}/`);
     await shutdown("bench finished: stopping what this run started");

@@ -19,6 +19,8 @@ export const testEnv = {
   uploadUrl: read("UPLOADTHING_INGEST_URL", "http://127.0.0.1:4690"),
   uploadthingToken: read("UPLOADTHING_TOKEN", ""),
   fakeDataDir: read("FAKE_DATA_DIR", ".data/fakes-test"),
+  /** Where tests write their figures: `npm test`'s results, or the bench's when it runs them. */
+  resultsDir: read("QUIRELINE_RESULTS_DIR", ".data/test-results"),
   /** True when the database is the checkout's private MariaDB (not a DATABASE_URL given by hand). */
   privateDatabase: read("QUIRELINE_PRIVATE_DB", "1") === "1",
 } as const;

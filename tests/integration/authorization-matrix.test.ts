@@ -964,10 +964,10 @@ describe("guessed ids", () => {
 
 afterAll(() => {
   // The figures for the closing note and the README: cells, guesses, leaks.
-  const out = path.join(process.cwd(), ".data", "test-results");
+  const out = path.resolve(testEnv.resultsDir);
   mkdirSync(out, { recursive: true });
   const summary = {
-    routes: API_ROWS.length,
+    routeMethods: API_ROWS.length,
     pages: PAGE_ROWS.length,
     callers: CALLERS.length,
     cellsTested: cells.length,

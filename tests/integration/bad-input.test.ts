@@ -22,7 +22,7 @@ import {
 
 const PASSWORD = "sweep-lantern-quartz-31";
 const BASE = testEnv.appUrl;
-const RESULTS = path.resolve(import.meta.dirname, "../../.data/test-results");
+const RESULTS = path.resolve(testEnv.resultsDir);
 /** Requests in flight at once: enough to finish quickly, few enough for a 2-core machine. */
 const PARALLEL = 6;
 /** A request that takes longer than this counts as a hang. */
