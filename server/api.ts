@@ -1,7 +1,7 @@
 import "server-only";
 import { errorSummary, log, pathOf } from "@/server/log";
 import type { z } from "zod";
-import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
+import { findAnthologyAccess, findRole } from "@/db/queries/anthologies";
 import { findPieceAnthologySlug } from "@/db/queries/review";
 import { findPieceAccess } from "@/db/queries/submissions";
 import { can, maySeePiece, type Action } from "@/lib/auth/policy";
@@ -49,9 +49,9 @@ export async function requireApiUser(): Promise<SessionUser> {
 /** 401 without a session, 404 for an unknown anthology, 403 when the role does not allow `action`. */
 export async function requireApiAccess(slug: string, action: Action): Promise<AnthologyAccess> {
   const user = await requireApiUser();
-  const anthology = await findAnthologyBySlug(slug);
-  if (!anthology) throw new HttpError(404, `No anthology called "${slug}".`);
-  const role = await findRole(anthology.id, user.id);
+  const found = await findAnthologyAccess(slug, user.id);
+  if (!found) throw new HttpError(404, `No anthology called "${slug}".`);
+  const { anthology, role } = found;
   if (!can(role, action))
     throw new HttpError(
       403,

@@ -24,6 +24,31 @@ export async function findAnthologyBySlug(slug: string): Promise<Anthology | und
   return row?.slug === slug ? row : undefined;
 }
 
+/**
+ * The anthology named by `slug` and the person's role in it (null: not a member), in one query;
+ * undefined for an unknown anthology. Every guarded route and page asks this first.
+ */
+export async function findAnthologyAccess(
+  slug: string,
+  userId: string,
+): Promise<{ anthology: Anthology; role: Role | null } | undefined> {
+  if (!isSlug(slug)) return undefined;
+  const [row] = await db
+    .select({ anthology: schema.anthologies, role: schema.memberships.role })
+    .from(schema.anthologies)
+    .leftJoin(
+      schema.memberships,
+      and(
+        eq(schema.memberships.anthologyId, schema.anthologies.id),
+        eq(schema.memberships.userId, userId),
+      ),
+    )
+    .where(eq(schema.anthologies.slug, slug))
+    .limit(1);
+  if (row?.anthology.slug !== slug) return undefined;
+  return { anthology: row.anthology, role: row.role ?? null };
+}
+
 export async function findRole(anthologyId: number, userId: string): Promise<Role | null> {
   const [row] = await db
     .select({ role: schema.memberships.role })

@@ -1,7 +1,7 @@
 import "server-only";
 import { forbidden, notFound, redirect } from "next/navigation";
 import { auth } from "@/auth";
-import { findAnthologyBySlug, findRole, type Anthology } from "@/db/queries/anthologies";
+import { findAnthologyAccess, type Anthology } from "@/db/queries/anthologies";
 import type { Role, SessionUser } from "@/lib/domain";
 import { can, type Action } from "@/lib/auth/policy";
 
@@ -29,9 +29,9 @@ export async function requireAnthologyAccess(
   returnTo?: string,
 ): Promise<AnthologyAccess> {
   const user = await requireUser(returnTo ?? `/studio/${slug}`);
-  const anthology = await findAnthologyBySlug(slug);
-  if (!anthology) notFound();
-  const role = await findRole(anthology.id, user.id);
+  const found = await findAnthologyAccess(slug, user.id);
+  if (!found) notFound();
+  const { anthology, role } = found;
   if (!can(role, action)) forbidden();
   return { user, anthology, role };
 }

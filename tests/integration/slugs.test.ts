@@ -16,7 +16,8 @@ vi.mock("@/auth", () => ({
 }));
 
 const { db, pool, schema } = await import("@/db");
-const { createAnthology, findAnthologyBySlug } = await import("@/db/queries/anthologies");
+const { createAnthology, findAnthologyAccess, findAnthologyBySlug } =
+  await import("@/db/queries/anthologies");
 const { findPublishedCall } = await import("@/db/queries/open-call");
 const anthologyRoute = await import("@/app/api/anthologies/[slug]/route");
 
@@ -91,6 +92,15 @@ describe("finding an anthology by its slug", () => {
     expect((await findAnthologyBySlug(slug))?.id).toBe(anthologyId);
     for (const variant of lookalikes())
       expect(await findAnthologyBySlug(variant), JSON.stringify(variant)).toBeUndefined();
+  });
+
+  it("finds the anthology and the role only at the exact slug, for the guards of every route and page", async () => {
+    const found = await findAnthologyAccess(slug, leadId);
+    expect(found?.anthology.id).toBe(anthologyId);
+    expect(found?.role).toBe("lead");
+    expect((await findAnthologyAccess(slug, "no-such-person"))?.role).toBeNull();
+    for (const variant of lookalikes())
+      expect(await findAnthologyAccess(variant, leadId), JSON.stringify(variant)).toBeUndefined();
   });
 
   it("shows the public call page only at the exact slug", async () => {
