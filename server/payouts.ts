@@ -131,7 +131,25 @@ async function owedLineOrRefuse(anthologyId: number, entryId: number) {
   return entry;
 }
 
-export type PayOutcome = { state: "sent" | "paid"; transferId: string; attempt: number };
+export type PayOutcome = {
+  state: "sent" | "paid";
+  transferId: string;
+  attempt: number;
+  /** The service had already confirmed this transfer before the request: nothing more was paid. */
+  alreadyPaid?: boolean;
+};
+
+/**
+ * The transfer that paid an owed line, once the service has confirmed it; undefined while the line
+ * is unpaid, cancelled or paid by hand.
+ */
+async function confirmedTransferOf(anthologyId: number, entryId: number) {
+  const entry = await findEntry(anthologyId, entryId);
+  if (!entry || entry.kind !== "owed") return undefined;
+  const state = await owedLineState(entry);
+  if (!state.paid || state.reversed) return undefined;
+  return (await transfersFor(entry.id)).find((a) => a.state === "sent" && a.providerTransferId);
+}
 
 /**
  * Pays one owed line by transfer. The idempotency key is the line and the attempt, so a retried
@@ -143,6 +161,15 @@ export async function payEntryByTransfer(
   entryId: number,
   userId: string,
 ): Promise<PayOutcome> {
+  // A second click that the service's confirmation overtook learns the transfer that paid it.
+  const confirmed = await confirmedTransferOf(anthology.id, entryId);
+  if (confirmed)
+    return {
+      state: "paid",
+      transferId: confirmed.providerTransferId!,
+      attempt: confirmed.attempt,
+      alreadyPaid: true,
+    };
   const entry = await owedLineOrRefuse(anthology.id, entryId);
   if (entry.amountCents <= 0) throw refuse(409, "Nothing is owed on this line.");
   const account = await findPayoutAccount(entry.contributorId);

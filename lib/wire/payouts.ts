@@ -102,6 +102,12 @@ export interface PayAnswer {
   transferId: string;
 }
 
+/** 409 from the pay route for a line the service had already confirmed paid: nothing more is paid. */
+export interface AlreadyPaidAnswer extends PayAnswer {
+  error: string;
+  state: "paid";
+}
+
 export interface OnboardingAnswer {
   url: string;
 }

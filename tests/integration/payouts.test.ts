@@ -355,6 +355,10 @@ describe("paying by transfer", () => {
     expect(paid.source).toBe("transfer");
     const again = await pay(fee.id);
     expect(again.status).toBe(409);
+    // Nothing more is paid, and the answer names the transfer that paid it.
+    expect(((await again.json()) as { transferId?: string }).transferId).toBe(
+      answers[0]!.transferId,
+    );
     // Retried request: the same call again reaches the same transfer through its idempotency key.
     const [attempt] = await db
       .select()
