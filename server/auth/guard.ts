@@ -1,5 +1,6 @@
 import "server-only";
 import { forbidden, notFound, redirect } from "next/navigation";
+import type { ReactNode } from "react";
 import { auth } from "@/auth";
 import { findAnthologyAccess, type Anthology } from "@/db/queries/anthologies";
 import type { Role, SessionUser } from "@/lib/domain";
@@ -34,4 +35,24 @@ export async function requireAnthologyAccess(
   const { anthology, role } = found;
   if (!can(role, action)) forbidden();
   return { user, anthology, role };
+}
+
+/**
+ * The layout of a section with a loading.tsx: the access check runs in the layout, outside the
+ * segment's loading boundary, so a refusal is decided before the response starts and answers 403
+ * (in the page, behind loading.tsx, it would stream as 200). `section` is the path under the
+ * anthology, for the sign-in return.
+ */
+export function guardedSectionLayout(action: Action, section: string) {
+  return async function GuardedSectionLayout({
+    children,
+    params,
+  }: {
+    children: ReactNode;
+    params: Promise<{ slug: string }>;
+  }) {
+    const { slug } = await params;
+    await requireAnthologyAccess(slug, action, `/studio/${slug}/${section}`);
+    return children;
+  };
 }

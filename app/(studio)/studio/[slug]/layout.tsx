@@ -1,6 +1,6 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
-import { findAnthologyBySlug, findRole } from "@/db/queries/anthologies";
+import { findAnthologyAccess } from "@/db/queries/anthologies";
 import { currentUser } from "@/server/auth/guard";
 import { can, type Action } from "@/lib/auth/policy";
 
@@ -32,8 +32,9 @@ export default async function AnthologyLayout({
 }) {
   const { slug } = await params;
   const user = await currentUser();
-  const anthology = await findAnthologyBySlug(slug);
-  const role = user && anthology ? await findRole(anthology.id, user.id) : null;
+  const found = user ? await findAnthologyAccess(slug, user.id) : undefined;
+  const anthology = found?.anthology;
+  const role = found?.role ?? null;
   const visible = SECTIONS.filter((s) => can(role, s.action));
   return (
     <div className="flex flex-col gap-6">

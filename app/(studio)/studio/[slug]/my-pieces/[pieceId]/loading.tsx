@@ -1,25 +1,6 @@
+import { LoadingCards } from "@/components/ui/loading-cards";
+
 /** Shown while one piece's pages, reports and versions load. */
 export default function Loading() {
-  return (
-    <div
-      className="flex flex-col gap-4"
-      aria-busy="true"
-      aria-live="polite"
-      data-testid="my-piece-loading"
-    >
-      <p className="text-sm text-ink-soft">Loading your piece…</p>
-      {[0, 1].map((n) => (
-        <div
-          key={n}
-          className="flex h-40 animate-pulse gap-4 rounded-lg border border-ink/10 bg-white/40 p-3"
-        >
-          <div className="h-32 w-24 rounded bg-paper-deep" />
-          <div className="flex flex-1 flex-col gap-2">
-            <div className="h-4 w-1/3 rounded bg-paper-deep" />
-            <div className="h-3 w-1/2 rounded bg-paper-deep" />
-          </div>
-        </div>
-      ))}
-    </div>
-  );
+  return <LoadingCards message="Loading your piece…" testId="my-piece-loading" tall />;
 }
